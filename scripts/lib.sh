@@ -1,0 +1,115 @@
+# Shared set-up steps for start.sh and test.sh. Every step is idempotent.
+# shellcheck shell=bash
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+DATA_DIR="$ROOT/.data"
+
+log() { printf '\033[1;33m[thalpos]\033[0m %s\n' "$*"; }
+die() { printf '\033[1;31m[thalpos]\033[0m %s\n' "$*" >&2; exit 1; }
+
+as_root() { if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi; }
+
+apt_install() {
+  command -v apt-get >/dev/null || die "apt-get not found: install $* by hand"
+  log "installing $* from Debian (apt-get)"
+  if [ -z "${THALPOS_APT_UPDATED:-}" ]; then as_root apt-get update -qq; THALPOS_APT_UPDATED=1; fi
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >/dev/null
+}
+
+ensure_node_modules() {
+  local stamp="$ROOT/node_modules/.package-lock.json"
+  if [ ! -f "$stamp" ] || [ "$ROOT/package-lock.json" -nt "$stamp" ]; then
+    log "installing npm dependencies (npm ci)"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+pg_bin_dir() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+
+ensure_postgres() {
+  if [ -z "$(pg_bin_dir)" ] || [ ! -x "$(pg_bin_dir)/initdb" ]; then
+    # Debian's package also creates and starts its own cluster; ours is separate and project-local.
+    apt_install postgresql
+  fi
+  PG_BIN="$(pg_bin_dir)"
+  [ -x "$PG_BIN/initdb" ] || die "PostgreSQL server binaries not found after install"
+  export PG_BIN
+}
+
+ensure_chromium() {
+  if ! command -v chromium >/dev/null; then apt_install chromium fonts-dejavu-core; fi
+  export CHROMIUM_PATH="${CHROMIUM_PATH:-$(command -v chromium)}"
+}
+
+free_port() {
+  node -e "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{console.log(s.address().port);s.close()})"
+}
+
+# PostgreSQL refuses to run as root: run its tools as the postgres user when we are root.
+pg_run() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+
+# Where a cluster's data lives: inside the project when the postgres user can reach it,
+# else under /var/tmp (e.g. a checkout under /root, which postgres cannot traverse).
+cluster_dir() {
+  local name="$1" dir="$DATA_DIR/$1"
+  if [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
+    dir="/var/tmp/thalpos-$(printf '%s' "$ROOT" | sha1sum | cut -c1-10)/$name"
+  fi
+  printf '%s' "$dir"
+}
+
+# cluster_start NAME PORT [extra postgres options]: initialises on first use, starts if stopped.
+# Sets CLUSTER_DIR, CLUSTER_PORT, CLUSTER_STARTED (1 when this call started it), PGPASSWORD_FILE.
+cluster_start() {
+  local name="$1" port="$2"; shift 2
+  CLUSTER_DIR="$(cluster_dir "$name")"
+  PGPASSWORD_FILE="$(dirname "$CLUSTER_DIR")/$name.password"
+  CLUSTER_STARTED=0
+  mkdir -p "$(dirname "$CLUSTER_DIR")"
+  if [ ! -s "$CLUSTER_DIR/PG_VERSION" ]; then
+    log "creating PostgreSQL cluster $name in $CLUSTER_DIR"
+    rm -rf "$CLUSTER_DIR"; mkdir -p "$CLUSTER_DIR"
+    [ -s "$PGPASSWORD_FILE" ] || (umask 077; node -e "console.log(require('crypto').randomBytes(18).toString('hex'))" > "$PGPASSWORD_FILE")
+    local pwfile; pwfile="$(mktemp)"; cp "$PGPASSWORD_FILE" "$pwfile"
+    if [ "$(id -u)" = 0 ]; then chown postgres "$CLUSTER_DIR" "$pwfile"; fi
+    chmod 700 "$CLUSTER_DIR"
+    pg_run "$PG_BIN/initdb" -D "$CLUSTER_DIR" -U postgres --pwfile="$pwfile" \
+      --auth-local=scram-sha-256 --auth-host=scram-sha-256 -E UTF8 --locale=C.UTF-8 >/dev/null \
+      || { rm -f "$pwfile"; die "initdb failed"; }
+    rm -f "$pwfile"
+  fi
+  if pg_run "$PG_BIN/pg_ctl" -D "$CLUSTER_DIR" status >/dev/null 2>&1; then
+    CLUSTER_PORT="$(sed -n 4p "$CLUSTER_DIR/postmaster.pid")"
+  else
+    CLUSTER_PORT="$port"
+    pg_run "$PG_BIN/pg_ctl" -D "$CLUSTER_DIR" -l "$CLUSTER_DIR/server.log" -w -t 60 start \
+      -o "-c listen_addresses=127.0.0.1 -p $CLUSTER_PORT -k $CLUSTER_DIR $*" >/dev/null \
+      || { tail -n 20 "$CLUSTER_DIR/server.log" >&2; die "PostgreSQL did not start"; }
+    CLUSTER_STARTED=1
+  fi
+  export PGPASSWORD; PGPASSWORD="$(cat "$PGPASSWORD_FILE")"
+}
+
+cluster_stop() {
+  [ -n "${CLUSTER_DIR:-}" ] && pg_run "$PG_BIN/pg_ctl" -D "$CLUSTER_DIR" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+psql_admin() { "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$CLUSTER_PORT" -U postgres -d postgres "$@"; }
+
+ensure_database() {
+  local db="$1"
+  if [ "$(psql_admin -tAc "select 1 from pg_database where datname = '$db'")" != 1 ]; then
+    psql_admin -c "create database \"$db\""
+  fi
+}
+
+database_url() { printf 'postgres://postgres:%s@127.0.0.1:%s/%s' "$PGPASSWORD" "$CLUSTER_PORT" "$1"; }
+
+# Rebuilds the client only when its sources or config changed since the last build.
+ensure_client_build() {
+  local index="$ROOT/dist/client/browser/index.html"
+  if [ ! -f "$index" ] || [ -n "$(find "$ROOT/client" "$ROOT/angular.json" "$ROOT/package-lock.json" -newer "$index" -type f -print -quit)" ]; then
+    log "building the client"
+    (cd "$ROOT" && npx ng build --configuration production >/dev/null) || die "client build failed"
+  fi
+}

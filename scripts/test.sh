@@ -1,0 +1,33 @@
+#!/usr/bin/env bash
+# npm test: the same set-up against a separate test cluster, then every suite. Extra arguments
+# go to Jest (e.g. `npm test -- --selectProjects api`).
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+ensure_node_modules
+ensure_postgres
+ensure_chromium
+
+# A cluster of its own on a free port: never touches the dev database or port 3000.
+cluster_start test "$(free_port)" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
+trap cluster_stop EXIT
+psql_admin -c 'drop database if exists thalpos_template' -c 'create database thalpos_template'
+export TEMPLATE_DATABASE_URL; TEMPLATE_DATABASE_URL="$(database_url thalpos_template)"
+DATABASE_URL="$TEMPLATE_DATABASE_URL" DEMO_DATA=1 npx tsx server/src/db/migrate-cli.ts
+export TEST_ADMIN_DATABASE_URL; TEST_ADMIN_DATABASE_URL="$(database_url postgres)"
+
+# SKIP_CLIENT_BUILD=1 saves the build when only server-side suites are run.
+[ "${SKIP_CLIENT_BUILD:-0}" = 1 ] || ensure_client_build
+export CLIENT_DIST="$ROOT/dist/client/browser"
+
+# The fake GitHub as its own process (it is an ES module, which CommonJS Jest cannot load).
+fake_log="$(mktemp)"
+FAKE_GITHUB_PORT=0 npx tsx server/src/fakes/main.ts > "$fake_log" 2>&1 &
+fake_pid=$!
+trap 'kill $fake_pid 2>/dev/null; cluster_stop; rm -f "$fake_log"' EXIT
+for _ in $(seq 1 100); do grep -q '^http' "$fake_log" && break; sleep 0.1; done
+export FAKE_GITHUB_URL; FAKE_GITHUB_URL="$(grep -m1 '^http' "$fake_log")" || die "fake GitHub did not start: $(cat "$fake_log")"
+
+export NODE_ENV=test LOG_LEVEL=silent
+npx jest --ci "$@"

@@ -1,0 +1,134 @@
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import connectPgSimple from 'connect-pg-simple';
+import express, { type Express } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import session from 'express-session';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { AppConfig } from './config/env';
+import type { DbHandle } from './db/client';
+import { AppError } from './lib/app-error';
+import type { Logger } from './lib/logger';
+import { csrfProtection } from './middleware/csrf';
+import { errorHandler } from './middleware/error-handler';
+import { notFoundHandler } from './middleware/not-found';
+import { authRouter } from './modules/auth/auth-router';
+import { createPassport, REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
+//TMP import { calculateRouter } from './modules/calculate/calculate-router';
+import { healthRouter } from './modules/health/health-router';
+import { usersRouter } from './modules/users/users-router';
+import { createUsersService } from './modules/users/users-service';
+
+export interface AppDeps {
+  config: AppConfig;
+  database: DbHandle;
+  logger: Logger;
+  /** URL of the fake GitHub when no real one is configured. */
+  fakeGithubUrl?: string | null;
+}
+
+export const SESSION_COOKIE = 'thalpos.sid';
+const BODY_LIMIT = '100kb';
+
+/** Builds the application without listening, so tests drive it directly with supertest. */
+export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.set('query parser', 'simple');
+
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = (req.headers['x-request-id'] as string | undefined) ?? randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'connect-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'https://avatars.githubusercontent.com'],
+          // Only upgrade where the site is actually served over TLS.
+          'upgrade-insecure-requests': config.trustProxy ? [] : null,
+        },
+      },
+    }),
+  );
+
+  app.use('/api', healthRouter(database.pool));
+
+  app.use(express.json({ limit: BODY_LIMIT }));
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      store: new (connectPgSimple(session))({ pool: database.pool, tableName: 'session' }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 8 * 3600_000 },
+    }),
+  );
+
+  const users = createUsersService(database.db, config.adminLogins);
+  const github: GithubEndpoints = config.github
+    ? { ...config.github, ...REAL_GITHUB }
+    : {
+        clientId: 'thalpos-local',
+        clientSecret: 'thalpos-local-secret',
+        webBase: requireFake(fakeGithubUrl ?? config.fakeGithubUrl),
+        apiBase: requireFake(fakeGithubUrl ?? config.fakeGithubUrl),
+      };
+  const passport = createPassport(users, github);
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use(csrfProtection);
+
+  app.use(
+    '/auth',
+    authRouter({ passport, allowLoginHint: !config.github, rateLimitPerMinute: config.authRateLimit }),
+  );
+
+  const apiLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: config.apiRateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: () => {
+      throw new AppError(429, 'rate_limited', 'Too many requests; slow down and try again shortly');
+    },
+  });
+  app.use('/api/v1', apiLimiter, usersRouter(users));//TMP
+  app.use(['/api', '/auth'], notFoundHandler);
+
+  serveClient(app, config.clientDist);
+  app.use(errorHandler);
+  return app;
+}
+
+function requireFake(url: string | null | undefined): string {
+  if (!url) throw new Error('No GitHub credentials and no fake GitHub URL: cannot offer sign-in');
+  return url;
+}
+
+/** The built Angular app, with the SPA fallback for every other GET. */
+function serveClient(app: Express, dist: string): void {
+  const index = path.join(dist, 'index.html');
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get(/.*/, (_req, res) => {
+    if (!fs.existsSync(index)) {
+      res.status(503).type('text').send('The client has not been built yet: run `npm run build:client`.');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

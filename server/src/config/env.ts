@@ -1,0 +1,92 @@
+import { z } from 'zod';
+import { DEFAULT_CLIENT_DIST } from './paths';
+
+const bool = z
+  .enum(['0', '1', 'true', 'false'])
+  .transform((v) => v === '1' || v === 'true');
+
+const EnvSchema = z
+  .object({
+    NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+    HOST: z.string().default('127.0.0.1'),
+    PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    DATABASE_URL: z.string().url(),
+    SESSION_SECRET: z.string().min(16).optional(),
+    GITHUB_CLIENT_ID: z.string().min(1).optional(),
+    GITHUB_CLIENT_SECRET: z.string().min(1).optional(),
+    /** Base URL of an already running fake GitHub (tests start one of their own). */
+    FAKE_GITHUB_URL: z.string().url().optional(),
+    /** Port of the fake GitHub that the server starts in-process when no real one is configured. */
+    FAKE_GITHUB_PORT: z.coerce.number().int().min(0).max(65535).default(3001),
+    /** GitHub logins that become admin at their first sign-in (bootstraps a real deployment). */
+    ADMIN_LOGINS: z.string().default(''),
+    CLIENT_DIST: z.string().default(DEFAULT_CLIENT_DIST),
+    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+    TRUST_PROXY: bool.default(false),
+    DEMO_DATA: bool.default(true),
+    AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(60),
+    API_RATE_LIMIT: z.coerce.number().int().positive().default(600),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
+      ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'required in production' });
+    }
+    if (Boolean(env.GITHUB_CLIENT_ID) !== Boolean(env.GITHUB_CLIENT_SECRET)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['GITHUB_CLIENT_SECRET'],
+        message: 'GITHUB_CLIENT_ID and GITHUB_CLIENT_SECRET go together',
+      });
+    }
+  });
+
+export type Env = z.infer<typeof EnvSchema>;
+
+export interface AppConfig {
+  env: Env['NODE_ENV'];
+  host: string;
+  port: number;
+  databaseUrl: string;
+  sessionSecret: string;
+  /** Real GitHub credentials, or null when the fake provider stands in. */
+  github: { clientId: string; clientSecret: string } | null;
+  fakeGithubUrl: string | null;
+  fakeGithubPort: number;
+  adminLogins: string[];
+  clientDist: string;
+  logLevel: Env['LOG_LEVEL'];
+  trustProxy: boolean;
+  demoData: boolean;
+  authRateLimit: number;
+  apiRateLimit: number;
+}
+
+/** Parses the environment once at start-up; a bad value stops the process with a clear message. */
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = EnvSchema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    databaseUrl: e.DATABASE_URL,
+    sessionSecret: e.SESSION_SECRET ?? 'thalpos-development-secret-not-for-production',
+    github:
+      e.GITHUB_CLIENT_ID && e.GITHUB_CLIENT_SECRET
+        ? { clientId: e.GITHUB_CLIENT_ID, clientSecret: e.GITHUB_CLIENT_SECRET }
+        : null,
+    fakeGithubUrl: e.FAKE_GITHUB_URL ?? null,
+    fakeGithubPort: e.FAKE_GITHUB_PORT,
+    adminLogins: e.ADMIN_LOGINS.split(',').map((s) => s.trim()).filter(Boolean),
+    clientDist: e.CLIENT_DIST,
+    logLevel: e.LOG_LEVEL,
+    trustProxy: e.TRUST_PROXY,
+    demoData: e.DEMO_DATA,
+    authRateLimit: e.AUTH_RATE_LIMIT,
+    apiRateLimit: e.API_RATE_LIMIT,
+  };
+}

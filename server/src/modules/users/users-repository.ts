@@ -1,0 +1,67 @@
+import { asc, eq, getTableColumns, sql } from 'drizzle-orm';
+import { users, type Role, type UserRow } from '../../../../schema';
+import type { Database, Tx } from '../../db/client';
+
+type Queryable = Database | Tx;
+
+export interface GithubIdentity {
+  githubId: number;
+  login: string;
+  name: string;
+  email: string | null;
+  avatarUrl: string | null;
+}
+
+export const usersRepository = {
+  findById(db: Queryable, id: number): Promise<UserRow | undefined> {
+    return db.query.users.findFirst({ where: eq(users.id, id) });
+  },
+
+  list(db: Queryable): Promise<UserRow[]> {
+    return db.select().from(users).orderBy(asc(users.login), asc(users.id));
+  },
+
+  /** Locks the row so concurrent role changes serialise. */
+  async findByIdForUpdate(tx: Tx, id: number): Promise<UserRow | undefined> {
+    const [row] = await tx.select().from(users).where(eq(users.id, id)).for('update');
+    return row;
+  },
+
+  /** Locks every admin row: two admins demoting each other at once cannot both succeed. */
+  async lockAdmins(tx: Tx): Promise<number> {
+    const rows = await tx.select({ id: users.id }).from(users).where(eq(users.role, 'admin')).for('update');
+    return rows.length;
+  },
+
+  async setRole(tx: Tx, id: number, role: Role): Promise<UserRow> {
+    const [row] = await tx.update(users).set({ role }).where(eq(users.id, id)).returning();
+    return row;
+  },
+
+  /**
+   * Creates the user on first sign-in or refreshes the profile afterwards. `inserted` tells the
+   * two apart (xmax is 0 only for a freshly inserted row).
+   */
+  async upsertFromGithub(
+    tx: Tx,
+    identity: GithubIdentity,
+    roleIfNew: Role,
+  ): Promise<{ user: UserRow; inserted: boolean }> {
+    const [row] = await tx
+      .insert(users)
+      .values({ ...identity, role: roleIfNew, lastSignInAt: new Date() })
+      .onConflictDoUpdate({
+        target: users.githubId,
+        set: {
+          login: identity.login,
+          name: identity.name,
+          email: identity.email,
+          avatarUrl: identity.avatarUrl,
+          lastSignInAt: new Date(),
+        },
+      })
+      .returning({ ...getTableColumns(users), inserted: sql<boolean>`(xmax = 0)` });
+    const { inserted, ...user } = row;
+    return { user, inserted };
+  },
+};

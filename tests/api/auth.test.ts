@@ -1,0 +1,103 @@
+import request from 'supertest';
+import { createTestApp, signIn, type TestApp } from '../support/test-app';
+
+describe('sign-in through the fake GitHub', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('is anonymous before sign-in: /api/v1/me answers 401', async () => {
+    const res = await request(t.app).get('/api/v1/me').expect(401);
+    expect(res.body.error.code).toBe('unauthenticated');
+  });
+
+  it('redirects /auth/github to the provider with state and the login hint', async () => {
+    const res = await request(t.app).get('/auth/github?login=demo-curator').expect(302);
+    const url = new URL(res.headers.location);
+    expect(url.origin).toBe(process.env.FAKE_GITHUB_URL);
+    expect(url.pathname).toBe('/login/oauth/authorize');
+    expect(url.searchParams.get('login')).toBe('demo-curator');
+    expect(url.searchParams.get('state')).toBeTruthy();
+    expect(url.searchParams.get('redirect_uri')).toMatch(/\/auth\/github\/callback$/);
+  });
+
+  it('shows an account chooser when no account is named', async () => {
+    const res = await request(t.app).get('/auth/github').expect(302);
+    const page = await fetch(res.headers.location);
+    const html = await page.text();
+    for (const login of ['demo-reader', 'demo-curator', 'demo-editor', 'demo-editor-2', 'demo-admin']) {
+      expect(html).toContain(login);
+    }
+  });
+
+  it.each([
+    ['demo-reader', 'reader', 'Tomas Reyes'],
+    ['demo-curator', 'curator', 'Priya Nandakumar'],
+    ['demo-editor', 'editor', 'Helga Brandt'],
+    ['demo-editor-2', 'editor', 'Kwame Mensah'],
+    ['demo-admin', 'admin', 'Lena Sørensen'],
+  ])('signs %s in with the %s role', async (login, role, name) => {
+    const agent = request.agent(t.app);
+    await signIn(agent, login);
+    const me = await agent.get('/api/v1/me').expect(200);
+    expect(me.body).toMatchObject({ login, role, name, id: expect.any(Number) });
+  });
+
+  it('issues an httpOnly, SameSite=Lax session cookie and a readable XSRF-TOKEN cookie', async () => {
+    const agent = request.agent(t.app);
+    const start = await agent.get('/auth/github?login=demo-reader');
+    const authorize = await fetch(start.headers.location, { redirect: 'manual' });
+    const cb = new URL(authorize.headers.get('location')!);
+    const done = await agent.get(cb.pathname + cb.search).expect(302);
+    const cookies = ([] as string[]).concat(done.headers['set-cookie'] ?? []);
+    const sessionCookie = cookies.find((c) => c.startsWith('thalpos.sid='));
+    const xsrfCookie = cookies.find((c) => c.startsWith('XSRF-TOKEN='));
+    expect(sessionCookie).toMatch(/HttpOnly/i);
+    expect(sessionCookie).toMatch(/SameSite=Lax/i);
+    expect(xsrfCookie).toBeDefined();
+    expect(xsrfCookie).not.toMatch(/HttpOnly/i);
+  });
+
+  it('rejects a callback whose state does not match the session', async () => {
+    const res = await request(t.app).get('/auth/github/callback?code=forged&state=forged');
+    expect(res.status).toBe(302);
+    expect(res.headers.location).toBe('/?signin=failed');
+    // and nobody is signed in
+  });
+
+  it('creates a new GitHub user as a reader and audits it', async () => {
+    // The fake only knows the demo accounts; a brand-new user is simulated by removing one first.
+    await t.db.pool.query(`delete from users where login = 'demo-reader'`);
+    const agent = request.agent(t.app);
+    await signIn(agent, 'demo-reader');
+    const me = await agent.get('/api/v1/me').expect(200);
+    expect(me.body.role).toBe('reader');
+    const audit = await t.db.pool.query(
+      `select action, after from audit_log where entity_type = 'user' and entity_id = $1`,
+      [String(me.body.id)],
+    );
+    expect(audit.rows).toEqual([{ action: 'user.created', after: { login: 'demo-reader', role: 'reader' } }]);
+  });
+
+  it('signs out with POST /auth/logout (CSRF token required)', async () => {
+    const agent = request.agent(t.app);
+    const xsrf = await signIn(agent, 'demo-editor');
+    await agent.post('/auth/logout').expect(403);
+    await agent.get('/api/v1/me').expect(200);
+    await agent.post('/auth/logout').set('X-XSRF-TOKEN', xsrf).expect(204);
+    await agent.get('/api/v1/me').expect(401);
+  });
+
+  it('rate-limits the sign-in routes with a JSON 429', async () => {
+    const limited = await createTestApp({ AUTH_RATE_LIMIT: '3' });
+    try {
+      for (let i = 0; i < 3; i++) await request(limited.app).get('/auth/github').expect(302);
+      const res = await request(limited.app).get('/auth/github').expect(429);
+      expect(res.body.error.code).toBe('rate_limited');
+    } finally {
+      await limited.close();
+    }
+  });
+});

@@ -1,0 +1,72 @@
+import fs from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import type { Server } from 'node:http';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { PROJECT_ROOT } from '../../server/src/config/paths';
+import { createTestApp, type TestApp } from './test-app';
+
+export const ARTIFACTS_DIR = path.join(PROJECT_ROOT, 'artifacts', 'e2e');
+
+export interface BrowserSession {
+  t: TestApp;
+  baseUrl: string;
+  context: BrowserContext;
+  page: Page;
+  /** Script errors and Content-Security-Policy refusals seen so far; tests expect none. */
+  problems: string[];
+  close(): Promise<void>;
+}
+
+/** The real app on a port of its own, driven by Debian's Chromium with a fresh profile. */
+export async function openBrowser(): Promise<BrowserSession> {
+  const t = await createTestApp();
+  const server: Server = await new Promise((resolve) => {
+    const s = t.app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'thalpos-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
+    headless: true,
+    viewport: { width: 1280, height: 860 },
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--disable-dev-shm-usage',
+    ],
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  const problems: string[] = [];
+  page.on('console', (msg) => {
+    // Failed requests (e.g. the anonymous 401 from /api/v1/me) are expected; refusals are not.
+    if (msg.type() === 'error' && /Content Security Policy|Refused to/i.test(msg.text())) {
+      problems.push(msg.text());
+    }
+  });
+  page.on('pageerror', (err) => problems.push(err.message));
+  fs.mkdirSync(ARTIFACTS_DIR, { recursive: true });
+  return {
+    t,
+    baseUrl,
+    context,
+    page,
+    problems,
+    async close() {
+      await context.close();
+      server.closeAllConnections();
+      await new Promise((r) => server.close(r));
+      await t.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+export const screenshot = (page: Page, name: string) =>
+  page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
