@@ -16,7 +16,11 @@ import { errorHandler } from './middleware/error-handler';
 import { notFoundHandler } from './middleware/not-found';
 import { authRouter } from './modules/auth/auth-router';
 import { createPassport, REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
-//TMP import { calculateRouter } from './modules/calculate/calculate-router';
+import {
+  CALCULATE_PATHS,
+  calculateBodyParser,
+  calculateRouter,
+} from './modules/calculate/calculate-router';
 import { healthRouter } from './modules/health/health-router';
 import { usersRouter } from './modules/users/users-router';
 import { createUsersService } from './modules/users/users-service';
@@ -48,10 +52,20 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
         return id;
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
+      // Method, path and status only: headers would put session cookies into the logs.
+      serializers: {
+        req: (req: { id: string; method: string; url: string }) => ({
+          id: req.id,
+          method: req.method,
+          url: req.url,
+        }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
     }),
   );
   app.use(
     helmet({
+      strictTransportSecurity: config.trustProxy,
       contentSecurityPolicy: {
         directives: {
           'connect-src': ["'self'"],
@@ -65,6 +79,8 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
 
   app.use('/api', healthRouter(database.pool));
 
+  // The public calculation routes take only small bodies; the parser that runs first wins.
+  app.use(CALCULATE_PATHS, calculateBodyParser);
   app.use(express.json({ limit: BODY_LIMIT }));
   app.use(
     session({
@@ -94,7 +110,11 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
 
   app.use(
     '/auth',
-    authRouter({ passport, allowLoginHint: !config.github, rateLimitPerMinute: config.authRateLimit }),
+    authRouter({
+      passport,
+      allowLoginHint: !config.github,
+      rateLimitPerMinute: config.authRateLimit,
+    }),
   );
 
   const apiLimiter = rateLimit({
@@ -106,7 +126,7 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
       throw new AppError(429, 'rate_limited', 'Too many requests; slow down and try again shortly');
     },
   });
-  app.use('/api/v1', apiLimiter, usersRouter(users));//TMP
+  app.use('/api/v1', apiLimiter, usersRouter(users), calculateRouter());
   app.use(['/api', '/auth'], notFoundHandler);
 
   serveClient(app, config.clientDist);
@@ -125,7 +145,10 @@ function serveClient(app: Express, dist: string): void {
   app.use(express.static(dist, { index: false, maxAge: '1h' }));
   app.get(/.*/, (_req, res) => {
     if (!fs.existsSync(index)) {
-      res.status(503).type('text').send('The client has not been built yet: run `npm run build:client`.');
+      res
+        .status(503)
+        .type('text')
+        .send('The client has not been built yet: run `npm run build:client`.');
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');

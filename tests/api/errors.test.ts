@@ -66,6 +66,6 @@ describe('error responses', () => {
   it('serves the client for any other path (SPA fallback)', async () => {
     const res = await request(t.app).get('/admin/users').expect(200);
     expect(res.headers['content-type']).toMatch(/html/);
-    expect(res.text).toContain('<app-root');
+    expect(res.text).toContain('<thalpos-root');
   });
 });

@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from '../lib/app-error';
-import { ThermoError } from '../thermo/errors';
+import { ThermoError } from '../thermo';
 
 interface BodyParserError {
   type?: string;
@@ -32,19 +32,34 @@ function toResponse(err: unknown): { status: number; body: Record<string, unknow
   }
   if (err instanceof ThermoError) {
     return {
-      status: err.code === 'parse_error' || err.code === 'unknown_element' || err.code === 'invalid_input' ? 400 : 422,
+      status:
+        err.code === 'parse_error' || err.code === 'unknown_element' || err.code === 'invalid_input'
+          ? 400
+          : 422,
       body: { code: err.code, message: err.message, ...err.details },
     };
   }
   const bp = err as BodyParserError;
   if (bp?.type === 'entity.parse.failed') {
-    return { status: 400, body: { code: 'invalid_json', message: 'The request body is not valid JSON' } };
+    return {
+      status: 400,
+      body: { code: 'invalid_json', message: 'The request body is not valid JSON' },
+    };
   }
   if (bp?.type === 'entity.too.large') {
-    return { status: 413, body: { code: 'payload_too_large', message: 'The request body is too large' } };
+    return {
+      status: 413,
+      body: { code: 'payload_too_large', message: 'The request body is too large' },
+    };
   }
   if (typeof bp?.status === 'number' && bp.status >= 400 && bp.status < 500) {
-    return { status: bp.status, body: { code: 'bad_request', message: 'The request could not be read' } };
+    return {
+      status: bp.status,
+      body: { code: 'bad_request', message: 'The request could not be read' },
+    };
   }
-  return { status: 500, body: { code: 'internal_error', message: 'Something went wrong on our side' } };
+  return {
+    status: 500,
+    body: { code: 'internal_error', message: 'Something went wrong on our side' },
+  };
 }

@@ -1,0 +1,29 @@
+import { Routes } from '@angular/router';
+
+import { roleGuard } from './core/auth-guard';
+
+export const routes: Routes = [
+  {
+    path: '',
+    pathMatch: 'full',
+    title: 'Thalpos',
+    loadComponent: () => import('./features/home/home-page/home-page').then((m) => m.HomePage),
+  },
+  {
+    path: 'calculate',
+    loadChildren: () =>
+      import('./features/calculate/calculate.routes').then((m) => m.CALCULATE_ROUTES),
+  },
+  {
+    path: 'admin',
+    canMatch: [roleGuard('admin')],
+    loadChildren: () => import('./features/admin/admin.routes').then((m) => m.ADMIN_ROUTES),
+  },
+  {
+    path: 'not-allowed',
+    title: 'Not allowed · Thalpos',
+    loadComponent: () =>
+      import('./core/not-allowed/not-allowed-page').then((m) => m.NotAllowedPage),
+  },
+  { path: '**', redirectTo: '' },
+];

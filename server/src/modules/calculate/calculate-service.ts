@@ -1,0 +1,97 @@
+import {
+  autoBalance,
+  checkBalance,
+  fromJoulesPerMole,
+  parseEquation,
+  printEquation,
+  solveHess,
+  ThermoError,
+  toJoulesPerMole,
+  type Equation,
+  type Term,
+} from '../../thermo';
+import type { HessInput } from './calculate-schemas';
+
+/** Parses one equation, naming the request field in any error so the client can point at it. */
+function parseField(text: string, field: string): Equation {
+  try {
+    return parseEquation(text);
+  } catch (err) {
+    if (err instanceof ThermoError)
+      throw new ThermoError(err.code, err.message, { ...err.details, field });
+    throw err;
+  }
+}
+
+const speciesLabel = (t: Term) =>
+  t.species.kind === 'key' ? `[${t.species.key}]` : t.species.formula;
+
+/** What the equation editor shows while someone types: normal form, balance, a suggestion. */
+export function describeEquation(text: string) {
+  const eq = parseField(text, 'equation');
+  const report = checkBalance(eq);
+  const balanced = report.balanced === true;
+  return {
+    normalized: printEquation(eq),
+    balanced,
+    imbalance: Object.fromEntries(
+      Object.entries(report.imbalance).map(([el, f]) => [el, f.valueOf()]),
+    ),
+    charge: report.charge.valueOf(),
+    unknownComposition: report.unknownComposition,
+    suggestion: balanced || report.balanced === null ? null : suggestBalance(eq),
+    species: [
+      ...eq.reactants.map((t) => ({
+        formula: speciesLabel(t),
+        phase: t.phase,
+        modification: t.modification,
+        coefficient: -t.coefficient.valueOf(),
+      })),
+      ...eq.products.map((t) => ({
+        formula: speciesLabel(t),
+        phase: t.phase,
+        modification: t.modification,
+        coefficient: t.coefficient.valueOf(),
+      })),
+    ],
+  };
+}
+
+function suggestBalance(eq: Equation): string | null {
+  try {
+    return printEquation(autoBalance(eq));
+  } catch (err) {
+    if (err instanceof ThermoError) return null;
+    throw err;
+  }
+}
+
+/** Hess combination in the caller's unit; the engine works in J/mol and the sum is linear. */
+export function combineSteps(input: HessInput) {
+  const { unit } = input;
+  const target = parseField(input.target, 'target');
+  const steps = input.steps.map((s, i) => ({
+    equation: parseField(s.equation, `steps[${i}].equation`),
+    deltaH: toJoulesPerMole(s.deltaH, unit),
+    uncertainty: s.uncertainty === undefined ? null : toJoulesPerMole(s.uncertainty, unit),
+  }));
+  const result = solveHess(target, steps);
+  const out = (jPerMol: number) => fromJoulesPerMole(jPerMol, unit);
+  return {
+    target: printEquation(result.target),
+    deltaH: out(result.deltaH),
+    uncertainty: result.uncertainty === null ? null : out(result.uncertainty),
+    unit,
+    multipliers: result.multipliers.map((m) => m.valueOf()),
+    unused: result.unused,
+    alternativeSolutions: result.alternativeSolutions,
+    steps: result.steps.map((s) => ({
+      index: s.index,
+      multiplier: s.multiplier.valueOf(),
+      flipped: s.flipped,
+      scale: s.scale.valueOf(),
+      deltaH: out(s.deltaH),
+      equation: printEquation(steps[s.index].equation),
+    })),
+  };
+}
