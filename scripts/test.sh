@@ -23,7 +23,7 @@ export CLIENT_DIST="$ROOT/dist/client/browser"
 
 # The fake GitHub as its own process (it is an ES module, which CommonJS Jest cannot load).
 fake_log="$(mktemp)"
-FAKE_GITHUB_PORT=0 npx tsx server/src/fakes/main.ts > "$fake_log" 2>&1 &
+FAKE_GITHUB_PORT=0 "$ROOT/node_modules/.bin/tsx" server/src/fakes/main.ts > "$fake_log" 2>&1 &
 fake_pid=$!
 trap 'kill $fake_pid 2>/dev/null; cluster_stop; rm -f "$fake_log"' EXIT
 for _ in $(seq 1 100); do grep -q '^http' "$fake_log" && break; sleep 0.1; done
