@@ -37,7 +37,7 @@ import { CalculateApi } from '../calculate-api';
 import { EquationField } from '../equation-field/equation-field';
 import type { HessRequest, HessStepInput } from '../models/hess';
 import { REFORMING_CHECK, REFORMING_CHECK_NOTE } from './hess-example';
-import { failed, IDLE, solved, SOLVING, type HessOutcome } from './hess-outcome';
+import { failed, IDLE, solved, SOLVING } from './hess-outcome';
 
 type StepForm = FormGroup<{
   equation: FormControl<string>;
