@@ -1,9 +1,7 @@
 import { z } from 'zod';
 import { DEFAULT_CLIENT_DIST } from './paths';
 
-const bool = z
-  .enum(['0', '1', 'true', 'false'])
-  .transform((v) => v === '1' || v === 'true');
+const bool = z.enum(['0', '1', 'true', 'false']).transform((v) => v === '1' || v === 'true');
 
 const EnvSchema = z
   .object({
@@ -21,15 +19,28 @@ const EnvSchema = z
     /** GitHub logins that become admin at their first sign-in (bootstraps a real deployment). */
     ADMIN_LOGINS: z.string().default(''),
     CLIENT_DIST: z.string().default(DEFAULT_CLIENT_DIST),
-    LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+    LOG_LEVEL: z
+      .enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'])
+      .default('info'),
     TRUST_PROXY: bool.default(false),
-    DEMO_DATA: bool.default(true),
+    /** Defaults: on outside production, off in production. */
+    DEMO_DATA: bool.optional(),
+    /** The fake provider signs anyone in as a demo account: never on in production by default. */
+    FAKE_SIGN_IN: bool.optional(),
     AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(60),
     API_RATE_LIMIT: z.coerce.number().int().positive().default(600),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'required in production' });
+    }
+    const fakeAllowed = env.FAKE_SIGN_IN ?? env.NODE_ENV !== 'production';
+    if (!env.GITHUB_CLIENT_ID && !fakeAllowed) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['GITHUB_CLIENT_ID'],
+        message: 'required in production (or set FAKE_SIGN_IN=1 for a demo server)',
+      });
     }
     if (Boolean(env.GITHUB_CLIENT_ID) !== Boolean(env.GITHUB_CLIENT_SECRET)) {
       ctx.addIssue({
@@ -81,11 +92,13 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
         : null,
     fakeGithubUrl: e.FAKE_GITHUB_URL ?? null,
     fakeGithubPort: e.FAKE_GITHUB_PORT,
-    adminLogins: e.ADMIN_LOGINS.split(',').map((s) => s.trim()).filter(Boolean),
+    adminLogins: e.ADMIN_LOGINS.split(',')
+      .map((s) => s.trim())
+      .filter(Boolean),
     clientDist: e.CLIENT_DIST,
     logLevel: e.LOG_LEVEL,
     trustProxy: e.TRUST_PROXY,
-    demoData: e.DEMO_DATA,
+    demoData: e.DEMO_DATA ?? e.NODE_ENV !== 'production',
     authRateLimit: e.AUTH_RATE_LIMIT,
     apiRateLimit: e.API_RATE_LIMIT,
   };
