@@ -60,11 +60,24 @@ describe('sign-in through the fake GitHub', () => {
     expect(xsrfCookie).not.toMatch(/HttpOnly/i);
   });
 
+  it('marks the cookies Secure behind a TLS-terminating proxy', async () => {
+    const behindTls = await createTestApp({ TRUST_PROXY: '1' });
+    try {
+      const res = await request(behindTls.app).get('/auth/github').set('X-Forwarded-Proto', 'https').expect(302);
+      const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('thalpos.sid='));
+      expect(cookie).toMatch(/;\s*Secure/i);
+      const plain = await request(t.app).get('/auth/github').expect(302);
+      const plainCookie = ([] as string[]).concat(plain.headers['set-cookie'] ?? []).find((c) => c.startsWith('thalpos.sid='));
+      expect(plainCookie).not.toMatch(/;\s*Secure/i);
+    } finally {
+      await behindTls.close();
+    }
+  });
+
   it('rejects a callback whose state does not match the session', async () => {
     const res = await request(t.app).get('/auth/github/callback?code=forged&state=forged');
     expect(res.status).toBe(302);
     expect(res.headers.location).toBe('/?signin=failed');
-    // and nobody is signed in
   });
 
   it('creates a new GitHub user as a reader and audits it', async () => {
