@@ -23,6 +23,7 @@ import {
 } from './modules/calculate/calculate-router';
 import { healthRouter } from './modules/health/health-router';
 import { usersRouter } from './modules/users/users-router';
+import { thermoJsonReplacer } from './thermo';
 import { createUsersService } from './modules/users/users-service';
 
 export interface AppDeps {
@@ -42,6 +43,8 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy ? 1 : false);
   app.set('query parser', 'simple');
+  // Exact engine values (fractions) serialise as text such as "1/2" wherever they appear.
+  app.set('json replacer', thermoJsonReplacer);
 
   app.use(
     pinoHttp({

@@ -147,6 +147,16 @@ describe('public calculation routes', () => {
       expect(res.body.error.code).toBe('not_unique');
     });
 
+    it('refuses an unbalanced step with 422 unbalanced and its imbalance', async () => {
+      const res = await request(t.app)
+        .post('/api/v1/hess/solve')
+        .send({ target: 'H2(g) + 1/2 O2(g) -> H2O(l)', steps: [{ equation: 'H2(g) + O2(g) -> H2O(l)', deltaH: -285.83 }] })
+        .expect(422);
+      expect(res.body.error.code).toBe('unbalanced');
+      // products minus reactants: O 1 − 2
+      expect(res.body.error.imbalance).toEqual({ O: '-1' });
+    });
+
     it('names the step whose equation does not parse', async () => {
       const res = await request(t.app)
         .post('/api/v1/hess/solve')

@@ -1,0 +1,48 @@
+import type Fraction from 'fraction.js';
+
+/** Phases of the input syntax; `s` is a solid whose polymorph is still to be resolved. */
+export type Phase = 'g' | 'l' | 'cr' | 's' | 'am' | 'aq';
+export const PHASES: readonly Phase[] = ['g', 'l', 'cr', 's', 'am', 'aq'];
+
+/** A species identified by its formula (composition known). */
+export interface FormulaSpecies {
+  readonly kind: 'formula';
+  /** Canonical written formula, e.g. "CuSO4·5H2O", "SO4^2-". */
+  readonly formula: string;
+  readonly elements: Readonly<Record<string, number>>;
+  readonly charge: number;
+  /** Hill-order display formula. */
+  readonly hill: string;
+}
+
+/** A species a formula cannot identify (isomers), named by its registry key; composition unknown. */
+export interface KeySpecies {
+  readonly kind: 'key';
+  readonly key: string;
+}
+
+export type Species = FormulaSpecies | KeySpecies;
+
+export interface Term {
+  /** Exact positive rational. */
+  readonly coefficient: Fraction;
+  readonly species: Species;
+  readonly phase: Phase | null;
+  /** Modification label such as "graphite", "calcite", "rhombic"; null when not written. */
+  readonly modification: string | null;
+  /**
+   * Species-phase identity: canonical formula or `[key]`, then `(phase[,modification])`.
+   * Terms with equal ids are the same species in the same phase.
+   */
+  readonly id: string;
+  /** True for phase `s`: a solid to be resolved against data (cr, am, or a named modification). */
+  readonly unresolvedSolid: boolean;
+}
+
+/** A net equation: no species-phase appears twice, coefficients are positive. */
+export interface Equation {
+  readonly reactants: readonly Term[];
+  readonly products: readonly Term[];
+}
+
+export type Side = 'reactant' | 'product';
