@@ -27,7 +27,13 @@ describe('sign-in through the fake GitHub', () => {
     const res = await request(t.app).get('/auth/github').expect(302);
     const page = await fetch(res.headers.location);
     const html = await page.text();
-    for (const login of ['demo-reader', 'demo-curator', 'demo-editor', 'demo-editor-2', 'demo-admin']) {
+    for (const login of [
+      'demo-reader',
+      'demo-curator',
+      'demo-editor',
+      'demo-editor-2',
+      'demo-admin',
+    ]) {
       expect(html).toContain(login);
     }
   });
@@ -63,11 +69,18 @@ describe('sign-in through the fake GitHub', () => {
   it('marks the cookies Secure behind a TLS-terminating proxy', async () => {
     const behindTls = await createTestApp({ TRUST_PROXY: '1' });
     try {
-      const res = await request(behindTls.app).get('/auth/github').set('X-Forwarded-Proto', 'https').expect(302);
-      const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('thalpos.sid='));
+      const res = await request(behindTls.app)
+        .get('/auth/github')
+        .set('X-Forwarded-Proto', 'https')
+        .expect(302);
+      const cookie = ([] as string[])
+        .concat(res.headers['set-cookie'] ?? [])
+        .find((c) => c.startsWith('thalpos.sid='));
       expect(cookie).toMatch(/;\s*Secure/i);
       const plain = await request(t.app).get('/auth/github').expect(302);
-      const plainCookie = ([] as string[]).concat(plain.headers['set-cookie'] ?? []).find((c) => c.startsWith('thalpos.sid='));
+      const plainCookie = ([] as string[])
+        .concat(plain.headers['set-cookie'] ?? [])
+        .find((c) => c.startsWith('thalpos.sid='));
       expect(plainCookie).not.toMatch(/;\s*Secure/i);
     } finally {
       await behindTls.close();
@@ -91,7 +104,9 @@ describe('sign-in through the fake GitHub', () => {
       `select action, after from audit_log where entity_type = 'user' and entity_id = $1`,
       [String(me.body.id)],
     );
-    expect(audit.rows).toEqual([{ action: 'user.created', after: { login: 'demo-reader', role: 'reader' } }]);
+    expect(audit.rows).toEqual([
+      { action: 'user.created', after: { login: 'demo-reader', role: 'reader' } },
+    ]);
   });
 
   it('signs out with POST /auth/logout (CSRF token required)', async () => {

@@ -14,7 +14,12 @@ describe('public calculation routes', () => {
         .post('/api/v1/equations/parse')
         .send({ equation: 'CH4(g) + 2O2(g) → CO2(g) + 2 H2O(l)' })
         .expect(200);
-      expect(res.body).toMatchObject({ balanced: true, imbalance: {}, charge: 0, suggestion: null });
+      expect(res.body).toMatchObject({
+        balanced: true,
+        imbalance: {},
+        charge: 0,
+        suggestion: null,
+      });
       expect(res.body.normalized).toBe('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)');
       expect(res.body.species).toEqual([
         expect.objectContaining({ formula: 'CH4', phase: 'g', coefficient: -1 }),
@@ -41,7 +46,10 @@ describe('public calculation routes', () => {
         .send({ equation: 'Na+(aq) + Cl-(aq) -> NaCl(cr)' })
         .expect(200);
       expect(res.body).toMatchObject({ balanced: true, charge: 0 });
-      const off = await request(t.app).post('/api/v1/equations/parse').send({ equation: 'Fe^3+(aq) -> Fe^2+(aq)' }).expect(200);
+      const off = await request(t.app)
+        .post('/api/v1/equations/parse')
+        .send({ equation: 'Fe^3+(aq) -> Fe^2+(aq)' })
+        .expect(200);
       expect(off.body.balanced).toBe(false);
       expect(off.body.charge).toBe(-1);
     });
@@ -51,17 +59,27 @@ describe('public calculation routes', () => {
         .post('/api/v1/equations/parse')
         .send({ equation: 'CH4(g) + 2 O2(g) CO2(g)' })
         .expect(400);
-      expect(res.body.error).toMatchObject({ code: 'parse_error', position: expect.any(Number), message: expect.any(String) });
+      expect(res.body.error).toMatchObject({
+        code: 'parse_error',
+        position: expect.any(Number),
+        message: expect.any(String),
+      });
     });
 
     it('refuses an unknown element with a clear error', async () => {
-      const res = await request(t.app).post('/api/v1/equations/parse').send({ equation: 'Xx2(g) -> Xx2(l)' }).expect(400);
+      const res = await request(t.app)
+        .post('/api/v1/equations/parse')
+        .send({ equation: 'Xx2(g) -> Xx2(l)' })
+        .expect(400);
       expect(['parse_error', 'unknown_element']).toContain(res.body.error.code);
       expect(res.body.error.message).toMatch(/Xx/);
     });
 
     it('validates the body and limits it to 10 kB', async () => {
-      expect((await request(t.app).post('/api/v1/equations/parse').send({ eq: 'x' }).expect(400)).body.error.code).toBe('validation_error');
+      expect(
+        (await request(t.app).post('/api/v1/equations/parse').send({ eq: 'x' }).expect(400)).body
+          .error.code,
+      ).toBe('validation_error');
       const big = await request(t.app)
         .post('/api/v1/equations/parse')
         .send({ equation: 'H2(g) -> H2(g)', pad: 'x'.repeat(11_000) })
@@ -89,14 +107,36 @@ describe('public calculation routes', () => {
       expect(res.body.unused).toEqual([]);
       expect(res.body.uncertainty).toBeNull();
       expect(res.body.steps).toEqual([
-        expect.objectContaining({ index: 0, multiplier: -0.5, flipped: true, scale: 0.5, deltaH: expect.closeTo(24.7, 9) }),
-        expect.objectContaining({ index: 1, multiplier: 0.5, flipped: false, scale: 0.5, deltaH: expect.closeTo(107.0, 9) }),
-        expect.objectContaining({ index: 2, multiplier: -1, flipped: true, scale: 1, deltaH: expect.closeTo(-236.2, 9) }),
+        expect.objectContaining({
+          index: 0,
+          multiplier: -0.5,
+          flipped: true,
+          scale: 0.5,
+          deltaH: expect.closeTo(24.7, 9),
+        }),
+        expect.objectContaining({
+          index: 1,
+          multiplier: 0.5,
+          flipped: false,
+          scale: 0.5,
+          deltaH: expect.closeTo(107.0, 9),
+        }),
+        expect.objectContaining({
+          index: 2,
+          multiplier: -1,
+          flipped: true,
+          scale: 1,
+          deltaH: expect.closeTo(-236.2, 9),
+        }),
       ]);
     });
 
     it('reports results in kcal/mol when the steps are given in kcal/mol', async () => {
-      const kcal = { ...clf3, unit: 'kcal/mol', steps: clf3.steps.map((s) => ({ ...s, deltaH: s.deltaH / 4.184 })) };
+      const kcal = {
+        ...clf3,
+        unit: 'kcal/mol',
+        steps: clf3.steps.map((s) => ({ ...s, deltaH: s.deltaH / 4.184 })),
+      };
       const res = await request(t.app).post('/api/v1/hess/solve').send(kcal).expect(200);
       expect(res.body.unit).toBe('kcal/mol');
       expect(res.body.deltaH).toBeCloseTo(-104.5 / 4.184, 9);
@@ -126,7 +166,10 @@ describe('public calculation routes', () => {
     it('answers 422 no_combination naming what cannot be matched', async () => {
       const res = await request(t.app)
         .post('/api/v1/hess/solve')
-        .send({ target: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)', steps: [{ equation: 'C(cr,graphite) + O2(g) -> CO2(g)', deltaH: -393.51 }] })
+        .send({
+          target: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)',
+          steps: [{ equation: 'C(cr,graphite) + O2(g) -> CO2(g)', deltaH: -393.51 }],
+        })
         .expect(422);
       expect(res.body.error.code).toBe('no_combination');
       expect(res.body.error.message).toMatch(/CH4|H2O/);
@@ -150,7 +193,10 @@ describe('public calculation routes', () => {
     it('refuses an unbalanced step with 422 unbalanced and its imbalance', async () => {
       const res = await request(t.app)
         .post('/api/v1/hess/solve')
-        .send({ target: 'H2(g) + 1/2 O2(g) -> H2O(l)', steps: [{ equation: 'H2(g) + O2(g) -> H2O(l)', deltaH: -285.83 }] })
+        .send({
+          target: 'H2(g) + 1/2 O2(g) -> H2O(l)',
+          steps: [{ equation: 'H2(g) + O2(g) -> H2O(l)', deltaH: -285.83 }],
+        })
         .expect(422);
       expect(res.body.error.code).toBe('unbalanced');
       // products minus reactants: O 1 − 2
@@ -160,13 +206,26 @@ describe('public calculation routes', () => {
     it('names the step whose equation does not parse', async () => {
       const res = await request(t.app)
         .post('/api/v1/hess/solve')
-        .send({ target: 'H2(g) + 1/2 O2(g) -> H2O(l)', steps: [{ equation: 'H2(g) + 1/2 O2(g) -> H2O(l)', deltaH: -285.83 }, { equation: 'H2O(l) ->', deltaH: 44 }] })
+        .send({
+          target: 'H2(g) + 1/2 O2(g) -> H2O(l)',
+          steps: [
+            { equation: 'H2(g) + 1/2 O2(g) -> H2O(l)', deltaH: -285.83 },
+            { equation: 'H2O(l) ->', deltaH: 44 },
+          ],
+        })
         .expect(400);
-      expect(res.body.error).toMatchObject({ code: 'parse_error', field: 'steps[1].equation', position: expect.any(Number) });
+      expect(res.body.error).toMatchObject({
+        code: 'parse_error',
+        field: 'steps[1].equation',
+        position: expect.any(Number),
+      });
     });
 
     it('validates the body', async () => {
-      const res = await request(t.app).post('/api/v1/hess/solve').send({ target: 'H2(g) -> H2(g)', steps: [], unit: 'eV' }).expect(400);
+      const res = await request(t.app)
+        .post('/api/v1/hess/solve')
+        .send({ target: 'H2(g) -> H2(g)', steps: [], unit: 'eV' })
+        .expect(400);
       expect(res.body.error.code).toBe('validation_error');
       expect(res.body.error.message).toMatch(/steps/);
       expect(res.body.error.message).toMatch(/unit/);
@@ -183,7 +242,10 @@ describe('public calculation routes', () => {
   it('rate-limits the public routes with a JSON 429', async () => {
     const limited = await createTestApp({ API_RATE_LIMIT: '2' });
     try {
-      const call = () => request(limited.app).post('/api/v1/equations/parse').send({ equation: 'H2(g) + 1/2 O2(g) -> H2O(l)' });
+      const call = () =>
+        request(limited.app)
+          .post('/api/v1/equations/parse')
+          .send({ equation: 'H2(g) + 1/2 O2(g) -> H2O(l)' });
       expect((await call()).status).toBe(200);
       expect((await call()).status).toBe(200);
       const res = await call();

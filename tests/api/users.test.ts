@@ -22,15 +22,22 @@ describe('users and roles', () => {
       await request(t.app).patch('/api/v1/users/1').send({ role: 'admin' }).expect(401);
     });
 
-    it.each(['demo-reader', 'demo-curator', 'demo-editor'])('refuses %s with 403', async (login) => {
-      const { agent, xsrf } = await as(login);
-      const list = await agent.get('/api/v1/users').expect(403);
-      expect(list.body.error.code).toBe('forbidden');
-      const target = await idOf('demo-reader');
-      await agent.patch(`/api/v1/users/${target}`).set('X-XSRF-TOKEN', xsrf).send({ role: 'admin' }).expect(403);
-      const row = await t.db.pool.query('select role from users where id = $1', [target]);
-      expect(row.rows[0].role).toBe('reader');
-    });
+    it.each(['demo-reader', 'demo-curator', 'demo-editor'])(
+      'refuses %s with 403',
+      async (login) => {
+        const { agent, xsrf } = await as(login);
+        const list = await agent.get('/api/v1/users').expect(403);
+        expect(list.body.error.code).toBe('forbidden');
+        const target = await idOf('demo-reader');
+        await agent
+          .patch(`/api/v1/users/${target}`)
+          .set('X-XSRF-TOKEN', xsrf)
+          .send({ role: 'admin' })
+          .expect(403);
+        const row = await t.db.pool.query('select role from users where id = $1', [target]);
+        expect(row.rows[0].role).toBe('reader');
+      },
+    );
 
     it('lets an admin list users', async () => {
       const { agent } = await as('demo-admin');
@@ -38,7 +45,12 @@ describe('users and roles', () => {
       const logins = res.body.users.map((u: { login: string }) => u.login);
       expect(logins).toEqual(expect.arrayContaining(['demo-admin', 'demo-curator', 'demo-reader']));
       expect(res.body.users[0]).toEqual(
-        expect.objectContaining({ id: expect.any(Number), login: expect.any(String), name: expect.any(String), role: expect.any(String) }),
+        expect.objectContaining({
+          id: expect.any(Number),
+          login: expect.any(String),
+          name: expect.any(String),
+          role: expect.any(String),
+        }),
       );
     });
   });
@@ -48,7 +60,10 @@ describe('users and roles', () => {
     const target = await idOf('demo-curator');
     const res = await agent.patch(`/api/v1/users/${target}`).send({ role: 'editor' }).expect(403);
     expect(res.body.error.code).toBe('csrf');
-    const wrong = await agent.patch(`/api/v1/users/${target}`).set('X-XSRF-TOKEN', 'not-the-token').send({ role: 'editor' });
+    const wrong = await agent
+      .patch(`/api/v1/users/${target}`)
+      .set('X-XSRF-TOKEN', 'not-the-token')
+      .send({ role: 'editor' });
     expect(wrong.status).toBe(403);
     const row = await t.db.pool.query('select role from users where id = $1', [target]);
     expect(row.rows[0].role).toBe('curator');
@@ -58,7 +73,11 @@ describe('users and roles', () => {
     const { agent, xsrf } = await as('demo-admin');
     const admin = await idOf('demo-admin');
     const target = await idOf('demo-editor-2');
-    const res = await agent.patch(`/api/v1/users/${target}`).set('X-XSRF-TOKEN', xsrf).send({ role: 'curator' }).expect(200);
+    const res = await agent
+      .patch(`/api/v1/users/${target}`)
+      .set('X-XSRF-TOKEN', xsrf)
+      .send({ role: 'curator' })
+      .expect(200);
     expect(res.body.user).toMatchObject({ id: target, login: 'demo-editor-2', role: 'curator' });
 
     const audit = await t.db.pool.query(
@@ -67,7 +86,11 @@ describe('users and roles', () => {
       [String(target)],
     );
     expect(audit.rows).toHaveLength(1);
-    expect(audit.rows[0]).toMatchObject({ actor_id: admin, before: { role: 'editor' }, after: { role: 'curator' } });
+    expect(audit.rows[0]).toMatchObject({
+      actor_id: admin,
+      before: { role: 'editor' },
+      after: { role: 'curator' },
+    });
     expect(audit.rows[0].at).toBeInstanceOf(Date);
 
     // The changed user sees the new role at once, without signing in again.
@@ -77,30 +100,70 @@ describe('users and roles', () => {
 
   it('answers 404 for an unknown user and 400 for a bad id', async () => {
     const { agent, xsrf } = await as('demo-admin');
-    expect((await agent.patch('/api/v1/users/999999').set('X-XSRF-TOKEN', xsrf).send({ role: 'editor' }).expect(404)).body.error.code).toBe('not_found');
-    expect((await agent.patch('/api/v1/users/abc').set('X-XSRF-TOKEN', xsrf).send({ role: 'editor' }).expect(400)).body.error.code).toBe('validation_error');
+    expect(
+      (
+        await agent
+          .patch('/api/v1/users/999999')
+          .set('X-XSRF-TOKEN', xsrf)
+          .send({ role: 'editor' })
+          .expect(404)
+      ).body.error.code,
+    ).toBe('not_found');
+    expect(
+      (
+        await agent
+          .patch('/api/v1/users/abc')
+          .set('X-XSRF-TOKEN', xsrf)
+          .send({ role: 'editor' })
+          .expect(400)
+      ).body.error.code,
+    ).toBe('validation_error');
   });
 
   it('never demotes the last admin, and audits nothing when refused', async () => {
     const { agent, xsrf } = await as('demo-admin');
     const admin = await idOf('demo-admin');
     const before = (await t.db.pool.query('select count(*)::int as n from audit_log')).rows[0].n;
-    const res = await agent.patch(`/api/v1/users/${admin}`).set('X-XSRF-TOKEN', xsrf).send({ role: 'editor' }).expect(409);
+    const res = await agent
+      .patch(`/api/v1/users/${admin}`)
+      .set('X-XSRF-TOKEN', xsrf)
+      .send({ role: 'editor' })
+      .expect(409);
     expect(res.body.error.code).toBe('last_admin');
-    expect((await t.db.pool.query('select role from users where id = $1', [admin])).rows[0].role).toBe('admin');
-    expect((await t.db.pool.query('select count(*)::int as n from audit_log')).rows[0].n).toBe(before);
+    expect(
+      (await t.db.pool.query('select role from users where id = $1', [admin])).rows[0].role,
+    ).toBe('admin');
+    expect((await t.db.pool.query('select count(*)::int as n from audit_log')).rows[0].n).toBe(
+      before,
+    );
   });
 
   it('allows demoting an admin while another admin remains', async () => {
     const { agent, xsrf } = await as('demo-admin');
     const curator = await idOf('demo-curator');
-    await agent.patch(`/api/v1/users/${curator}`).set('X-XSRF-TOKEN', xsrf).send({ role: 'admin' }).expect(200);
+    await agent
+      .patch(`/api/v1/users/${curator}`)
+      .set('X-XSRF-TOKEN', xsrf)
+      .send({ role: 'admin' })
+      .expect(200);
     const admin = await idOf('demo-admin');
-    await agent.patch(`/api/v1/users/${admin}`).set('X-XSRF-TOKEN', xsrf).send({ role: 'editor' }).expect(200);
+    await agent
+      .patch(`/api/v1/users/${admin}`)
+      .set('X-XSRF-TOKEN', xsrf)
+      .send({ role: 'editor' })
+      .expect(200);
     // demo-admin is now an editor: the next admin-only call from the same session is refused.
     await agent.get('/api/v1/users').expect(403);
     // and the remaining admin (demo-curator) cannot demote themself.
     const { agent: other, xsrf: otherXsrf } = await as('demo-curator');
-    expect((await other.patch(`/api/v1/users/${curator}`).set('X-XSRF-TOKEN', otherXsrf).send({ role: 'reader' }).expect(409)).body.error.code).toBe('last_admin');
+    expect(
+      (
+        await other
+          .patch(`/api/v1/users/${curator}`)
+          .set('X-XSRF-TOKEN', otherXsrf)
+          .send({ role: 'reader' })
+          .expect(409)
+      ).body.error.code,
+    ).toBe('last_admin');
   });
 });

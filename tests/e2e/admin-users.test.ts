@@ -10,7 +10,10 @@ describe('admin changes a role in the browser', () => {
   it('signs in through the provider chooser, changes a role, and the change survives a reload', async () => {
     const { page, baseUrl } = s;
     await page.goto(baseUrl);
-    await page.getByRole('link', { name: /sign in/i }).first().click();
+    await page
+      .getByRole('link', { name: /sign in/i })
+      .first()
+      .click();
 
     // The local provider's chooser page, on its own origin.
     await page.waitForURL(/\/login\/oauth\/authorize/);
@@ -32,7 +35,9 @@ describe('admin changes a role in the browser', () => {
 
     await page.reload();
     await page.getByRole('combobox', { name: 'Role for demo-reader' }).waitFor();
-    await expect(page.getByRole('combobox', { name: 'Role for demo-reader' }).textContent()).resolves.toMatch(/curator/);
+    await expect(
+      page.getByRole('combobox', { name: 'Role for demo-reader' }).textContent(),
+    ).resolves.toMatch(/curator/);
     await screenshot(page, 'admin-users');
     expect(s.problems).toEqual([]);
   });

@@ -10,12 +10,15 @@ describe('Calculate → Hess combination in the browser', () => {
   it('checks equations as they are typed and combines the steps into the target', async () => {
     const { page, baseUrl } = s;
     await page.goto(baseUrl);
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Calculate' }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Calculate' })
+      .click();
     await page.waitForURL(/\/calculate\/hess/);
     await page.getByRole('heading', { name: 'Hess combination' }).waitFor();
-    await expect(page.getByRole('note', { name: 'Safety caution' }).textContent()).resolves.toContain(
-      'Hazard assessment of real processes needs measured data',
-    );
+    await expect(
+      page.getByRole('note', { name: 'Safety caution' }).textContent(),
+    ).resolves.toContain('Hazard assessment of real processes needs measured data');
 
     // The live check answers from the server for the prefilled example…
     await page.locator('.check[data-check="balanced"]').first().waitFor();
@@ -24,12 +27,14 @@ describe('Calculate → Hess combination in the browser', () => {
     const step1 = page.getByRole('textbox', { name: 'Step 1 equation' });
     await step1.fill('CH4(g) + O2(g) -> CO2(g) + H2O(g)');
     await page.locator('.check[data-check="unbalanced"]').first().waitFor();
-    await expect(page.locator('.check[data-check="unbalanced"]').first().textContent()).resolves.toContain(
-      'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)',
-    );
+    await expect(
+      page.locator('.check[data-check="unbalanced"]').first().textContent(),
+    ).resolves.toContain('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)');
     await step1.fill('CH4(g) + 2 O2(g) CO2(g)');
     await page.locator('.check[data-check="invalid"]').first().waitFor();
-    await expect(page.locator('.check[data-check="invalid"]').first().textContent()).resolves.toMatch(/position \d+/);
+    await expect(
+      page.locator('.check[data-check="invalid"]').first().textContent(),
+    ).resolves.toMatch(/position \d+/);
     await step1.fill('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)');
     await page.locator('.check[data-check="invalid"]').waitFor({ state: 'detached' });
 

@@ -24,14 +24,9 @@ const kJ = 1000;
 // H°(T) − H°(298.15 K), kJ/mol at 500 / 1000 / 1500 K.
 const TABLE: [string, HeatCapacityModel, [number, number, number], string][] = [
   ['N2', GRI_N2, [5.911, 21.463, 38.405], 'Borgnakke & Sonntag Table A.9 = Chase 1998'],
-  ['O2', GRI_O2, [6.084, 22.703, 40.599], 'Chase 1998 (third-party transcription / from memory)'],
-  ['CO2', GRI_CO2, [8.305, 33.397, 61.705], 'Chase 1998 (third-party transcription / from memory)'],
-  [
-    'H2O(g)',
-    GRI_H2O,
-    [6.925, 26.0, 48.151],
-    'Chase 1998 (third-party transcription / from memory)',
-  ],
+  ['O2', GRI_O2, [6.084, 22.703, 40.599], 'Chase 1998 (secondary source / from memory)'],
+  ['CO2', GRI_CO2, [8.305, 33.397, 61.705], 'Chase 1998 (secondary source / from memory)'],
+  ['H2O(g)', GRI_H2O, [6.925, 26.0, 48.151], 'Chase 1998 (secondary source / from memory)'],
   [
     'H2',
     GRI_H2,

@@ -44,8 +44,16 @@ export async function createScratchCluster(): Promise<ScratchCluster> {
   const port = await freePort();
   run('initdb', ['-D', dir, '-U', 'postgres', '--auth=trust', '-E', 'UTF8']);
   const start = () =>
-    run('pg_ctl', ['-D', dir, '-w', '-l', path.join(dir, 'log'), '-o',
-      `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off`, 'start']);
+    run('pg_ctl', [
+      '-D',
+      dir,
+      '-w',
+      '-l',
+      path.join(dir, 'log'),
+      '-o',
+      `-c listen_addresses=127.0.0.1 -p ${port} -k ${dir} -c fsync=off`,
+      'start',
+    ]);
   const stop = () => run('pg_ctl', ['-D', dir, '-m', 'immediate', '-w', 'stop']);
   start();
   return {

@@ -48,7 +48,10 @@ export async function signIn(agent: Agent, login: string): Promise<string> {
   return token;
 }
 
-export function cookieValue(setCookie: string | string[] | undefined, name: string): string | undefined {
+export function cookieValue(
+  setCookie: string | string[] | undefined,
+  name: string,
+): string | undefined {
   const list = Array.isArray(setCookie) ? setCookie : setCookie ? [setCookie] : [];
   for (const c of list) {
     const [pair] = c.split(';');

@@ -90,15 +90,16 @@ function subjectOf(authorization: string | undefined): string | undefined {
   const payload = token?.split('.')[1];
   if (!payload) return undefined;
   try {
-    const claims = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as { sub?: unknown };
+    const claims = JSON.parse(Buffer.from(payload, 'base64url').toString('utf8')) as {
+      sub?: unknown;
+    };
     return typeof claims.sub === 'string' ? claims.sub : undefined;
   } catch {
     return undefined;
   }
 }
 
-const escapeHtml = (s: string) =>
-  s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 function chooserPage(originalUrl: string, unknownLogin: string): string {
   const links = DEMO_ACCOUNTS.map((a) => {

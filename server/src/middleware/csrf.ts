@@ -20,7 +20,11 @@ export function issueCsrfToken(req: Request, res: Response): void {
 
 function setCsrfCookie(req: Request, res: Response): void {
   // Readable by script on purpose: Angular's HttpClient copies it into the X-XSRF-TOKEN header.
-  res.cookie(CSRF_COOKIE, req.session.csrfToken, { sameSite: 'lax', secure: req.secure, path: '/' });
+  res.cookie(CSRF_COOKIE, req.session.csrfToken, {
+    sameSite: 'lax',
+    secure: req.secure,
+    path: '/',
+  });
 }
 
 // The token is base64url, so the raw cookie header can be compared without decoding.
@@ -45,7 +49,11 @@ export const csrfProtection: RequestHandler = (req, res, next) => {
   if (SAFE_METHODS.has(req.method)) return next();
   const header = req.get(CSRF_HEADER);
   if (!header || !matches(header, req.session.csrfToken)) {
-    throw new AppError(403, 'csrf', 'Missing or wrong X-XSRF-TOKEN header; reload the page and try again');
+    throw new AppError(
+      403,
+      'csrf',
+      'Missing or wrong X-XSRF-TOKEN header; reload the page and try again',
+    );
   }
   next();
 };

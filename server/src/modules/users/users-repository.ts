@@ -29,7 +29,11 @@ export const usersRepository = {
 
   /** Locks every admin row: two admins demoting each other at once cannot both succeed. */
   async lockAdmins(tx: Tx): Promise<number> {
-    const rows = await tx.select({ id: users.id }).from(users).where(eq(users.role, 'admin')).for('update');
+    const rows = await tx
+      .select({ id: users.id })
+      .from(users)
+      .where(eq(users.role, 'admin'))
+      .for('update');
     return rows.length;
   },
 

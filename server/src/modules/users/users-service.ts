@@ -18,7 +18,11 @@ export function createUsersService(db: Database, adminLogins: readonly string[])
         if (!target) throw notFound(`User ${id}`);
         if (target.role === role) return target;
         if (target.role === 'admin' && adminCount <= 1) {
-          throw new AppError(409, 'last_admin', `${target.login} is the last admin and cannot be demoted`);
+          throw new AppError(
+            409,
+            'last_admin',
+            `${target.login} is the last admin and cannot be demoted`,
+          );
         }
         const updated = await usersRepository.setRole(tx, id, role);
         await recordAudit(tx, {

@@ -1,5 +1,5 @@
 /**
- * Scenario: the Northwind Thermal Data Group (a fictional engineering data team) checks two
+ * Scenario: the Kestrel Process Works data team (a fictional engineering data team) checks two
  * process duties by combining formation steps, before trusting the numbers in a heat balance.
  * The scenario is ours; every ΔH in it is a published value named beside it, or arithmetic on
  * such values, except the one mistyped entry marked fictional.
@@ -30,14 +30,14 @@ const FORMATION_STEPS = {
   lime: { equation: 'Ca(cr) + 1/2 O2(g) -> CaO(cr)', deltaH: -634.92 * kJ, uncertainty: 0.9 * kJ },
   // Chase, Thermochemical Tables, 4th ed. (1998) — from memory (check-values.md marks it M); no ± given
   methane: { equation: 'C(cr,graphite) + 2 H2(g) -> CH4(g)', deltaH: -74.87 * kJ },
-  // NBS tables (Wagman et al. 1982), third-party transcription; no ± given
+  // NBS tables (Wagman et al. 1982), secondary source; no ± given
   calcite: {
     equation: 'Ca(cr) + C(cr,graphite) + 3/2 O2(g) -> CaCO3(cr,calcite)',
     deltaH: -1206.92 * kJ,
   },
 };
 
-describe('Northwind Thermal Data Group: steam-methane reforming duty', () => {
+describe('Kestrel Process Works data team: steam-methane reforming duty', () => {
   const target = 'CH4(g) + H2O(g) -> CO(g) + 3 H2(g)';
   const { co, co2, steam, methane } = FORMATION_STEPS;
 
@@ -91,7 +91,7 @@ describe('Northwind Thermal Data Group: steam-methane reforming duty', () => {
   });
 });
 
-describe('Northwind Thermal Data Group: limestone calcination duty', () => {
+describe('Kestrel Process Works data team: limestone calcination duty', () => {
   const { co2, lime, calcite } = FORMATION_STEPS;
 
   it('CaCO3(calcite) → CaO + CO2: ΔrH° = −634.92 − 393.51 + 1206.92 = 178.49 kJ/mol', () => {
