@@ -46,7 +46,8 @@ free_port() {
 }
 
 # PostgreSQL refuses to run as root: run its tools as the postgres user when we are root.
-pg_run() { if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi; }
+# From /, since the postgres user may not be allowed into the current directory.
+pg_run() { if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi; }
 
 # Where a cluster's data lives: inside the project when the postgres user can reach it,
 # else under /var/tmp (e.g. a checkout under /root, which postgres cannot traverse).
@@ -94,7 +95,7 @@ cluster_stop() {
   [ -n "${CLUSTER_DIR:-}" ] && pg_run "$PG_BIN/pg_ctl" -D "$CLUSTER_DIR" -m fast -w stop >/dev/null 2>&1 || true
 }
 
-psql_admin() { "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$CLUSTER_PORT" -U postgres -d postgres "$@"; }
+psql_admin() { PGOPTIONS='-c client_min_messages=warning' "$PG_BIN/psql" -X -q -v ON_ERROR_STOP=1 -h 127.0.0.1 -p "$CLUSTER_PORT" -U postgres -d postgres "$@"; }
 
 ensure_database() {
   local db="$1"
