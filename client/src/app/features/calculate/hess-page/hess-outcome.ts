@@ -42,13 +42,16 @@ export function solved(request: HessRequest, solution: HessSolution): HessOutcom
     target: request.target,
     unit: solution.unit,
     total: formatEnergy(solution.deltaH, solution.unit, solution.uncertainty),
-    used: solution.steps.map((step) => ({
-      number: step.index + 1,
-      equation: equationOf(step.index),
-      flipped: step.flipped ? 'Yes' : 'No',
-      scale: formatFactor(step.scale),
-      deltaH: formatValue(step.deltaH),
-    })),
+    // Unused steps (multiplier 0) are listed apart, not as ×0 rows.
+    used: solution.steps
+      .filter((step) => step.multiplier !== 0)
+      .map((step) => ({
+        number: step.index + 1,
+        equation: equationOf(step.index),
+        flipped: step.flipped ? 'Yes' : 'No',
+        scale: formatFactor(step.scale),
+        deltaH: formatValue(step.deltaH),
+      })),
     unused: solution.unused.map((index) => ({ number: index + 1, equation: equationOf(index) })),
   };
 }
@@ -73,6 +76,8 @@ export function failed(error: unknown): HessOutcome {
       };
     case 'parse_error':
       return { kind: 'failed', title: 'One of the equations cannot be read.', message };
+    case 'unbalanced':
+      return { kind: 'failed', title: 'One of the equations is not balanced.', message };
     case 'validation_error':
       return { kind: 'failed', title: 'Some of the inputs are not valid.', message };
     default:

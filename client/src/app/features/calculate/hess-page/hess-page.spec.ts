@@ -23,6 +23,8 @@ const reformingSolution: HessSolution = {
     { index: 0, multiplier: 1, flipped: false, scale: 1, deltaH: -802.3 },
     { index: 1, multiplier: -1, flipped: true, scale: 1, deltaH: 283 },
     { index: 2, multiplier: -3, flipped: true, scale: 3, deltaH: 725.4 },
+    // The server reports every step; an unused one has multiplier 0.
+    { index: 3, multiplier: 0, flipped: false, scale: 0, deltaH: 0 },
   ],
 };
 
