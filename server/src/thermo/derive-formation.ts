@@ -5,6 +5,7 @@ import type { FormationLookup, UncertaintyBasis } from './formation-data';
 import { toEquation } from './equation-input';
 import {
   balanceFor,
+  combine,
   evaluateTerms,
   referenceMatch,
   type BalanceOptions,
@@ -83,28 +84,18 @@ export function deriveFormationEnthalpy(
   const inputs = evaluateTerms(others, lookup);
   const nuX = equation.products.includes(target) ? target.coefficient : target.coefficient.neg();
 
-  let products = 0;
-  let reactants = 0;
+  // The measured value's uncertainty joins the inputs' in the same quadrature sum.
   const u = new QuadratureSum();
   u.add(mu, mu === null ? null : (options.measuredUncertaintyBasis ?? 'as_stated'));
-  for (const t of inputs) {
-    if (t.side === 'product') products += t.contribution;
-    else reactants -= t.contribution;
-    if (t.referenceState) u.addExact();
-    else
-      u.add(
-        t.uncertainty === null ? null : scaleNumber(t.uncertainty, t.term.coefficient),
-        t.uncertaintyBasis,
-      );
-  }
-  const rest = measuredDeltaH - (products - reactants);
+  const known = combine(inputs, u);
+  const rest = measuredDeltaH - known.deltaH;
   const inv = nuX.inverse();
-  const combined = u.uncertainty;
+  const combined = known.uncertainty;
   return {
     term: target,
     value: scaleNumber(rest, inv),
     uncertainty: combined === null ? null : scaleNumber(combined, inv.abs()),
-    uncertaintyBasis: u.combinedBasis,
+    uncertaintyBasis: known.uncertaintyBasis,
     measured: { deltaH: measuredDeltaH, uncertainty: mu },
     inputs,
   };

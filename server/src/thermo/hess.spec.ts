@@ -1,9 +1,9 @@
 import fc from 'fast-check';
-import { ThermoError } from './errors';
 import { reverseEquation, scaleEquation } from './equation-builder';
 import { parseEquation } from './equation-parser';
 import { solveHess, type HessStep } from './hess';
 import { frac } from './rational';
+import { thermoFailure } from './testing/expect-thermo-error';
 
 const kJ = 1000;
 // Formation reactions with CODATA Key Values (Cox, Wagman, Medvedev 1989), kJ/mol.
@@ -28,15 +28,7 @@ const WATER_G: HessStep = {
   uncertainty: 0.04 * kJ,
 };
 
-function failure(run: () => unknown): ThermoError {
-  try {
-    run();
-  } catch (err) {
-    if (err instanceof ThermoError) return err;
-    throw err;
-  }
-  throw new Error('expected a ThermoError');
-}
+const failure = thermoFailure;
 
 describe('solveHess', () => {
   it('combines steps with exact multipliers and reports each step', () => {

@@ -1,7 +1,7 @@
-import { ThermoError } from './errors';
 import type { Term } from './equation-types';
 import type { ShomateModel } from './heat-capacity';
 import { reactionEnthalpyAtT, type TemperatureValue } from './kirchhoff';
+import { thermoFailure } from './testing/expect-thermo-error';
 
 // Constant heat capacities are illustrative (not measurements): they make every expected value
 // a one-line sum. ΔfH° of water: CODATA Key Values (Cox, Wagman, Medvedev 1989); ΔvapH at
@@ -31,15 +31,7 @@ const DATA: Record<string, TemperatureValue> = {
 };
 const lookup = (t: Term): TemperatureValue | undefined => DATA[t.id];
 
-function failure(run: () => unknown): ThermoError {
-  try {
-    run();
-  } catch (err) {
-    if (err instanceof ThermoError) return err;
-    throw err;
-  }
-  throw new Error('expected a ThermoError');
-}
+const failure = thermoFailure;
 
 describe('reactionEnthalpyAtT', () => {
   it('adds Σν·[H(T) − H(298.15)] to the standard value', () => {

@@ -165,10 +165,10 @@ export function evaluateTerms(eq: Equation, lookup: FormationLookup): TermContri
  */
 export function combine(
   terms: readonly TermContribution[],
+  u: uncertainty.QuadratureSum = new QuadratureSum(),
 ): Omit<ReactionEnthalpy, 'terms' | 'balance'> {
   let products = 0;
   let reactants = 0;
-  const u = new QuadratureSum();
   for (const t of terms) {
     if (t.side === 'product') products += t.contribution;
     else reactants -= t.contribution;
