@@ -54,6 +54,23 @@ describe('public calculation routes', () => {
       expect(off.body.charge).toBe(-1);
     });
 
+    it('cannot judge the balance of a registry-key term and says which key', async () => {
+      const res = await request(t.app)
+        .post('/api/v1/equations/parse')
+        .send({ equation: '[2-methylpropane](g) + 13/2 O2(g) -> 4 CO2(g) + 5 H2O(l)' })
+        .expect(200);
+      expect(res.body).toMatchObject({
+        balanced: null,
+        suggestion: null,
+        unknownComposition: ['2-methylpropane'],
+      });
+      expect(res.body.species[0]).toMatchObject({
+        formula: '[2-methylpropane]',
+        phase: 'g',
+        coefficient: -1,
+      });
+    });
+
     it('answers a syntax error with 400 parse_error and the position', async () => {
       const res = await request(t.app)
         .post('/api/v1/equations/parse')

@@ -30,16 +30,16 @@ const speciesLabel = (t: Term) =>
 export function describeEquation(text: string) {
   const eq = parseField(text, 'equation');
   const report = checkBalance(eq);
-  const balanced = report.balanced === true;
   return {
     normalized: printEquation(eq),
-    balanced,
+    // null when a registry-key term hides its composition: the balance cannot be judged.
+    balanced: report.balanced,
     imbalance: Object.fromEntries(
       Object.entries(report.imbalance).map(([el, f]) => [el, f.valueOf()]),
     ),
     charge: report.charge.valueOf(),
     unknownComposition: report.unknownComposition,
-    suggestion: balanced || report.balanced === null ? null : suggestBalance(eq),
+    suggestion: report.balanced === false ? suggestBalance(eq) : null,
     species: [
       ...eq.reactants.map((t) => ({
         formula: speciesLabel(t),
