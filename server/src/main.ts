@@ -1,4 +1,5 @@
 // Starts Thalpos: migrations, demo data, the fake GitHub when needed, then the HTTP server.
+import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { loadConfig } from './config/env';
 import { connectDatabase } from './db/client';
@@ -22,7 +23,8 @@ async function main(): Promise<void> {
 
   const app = createApp({ config, database, logger, fakeGithubUrl: fake?.url });
   const server = app.listen(config.port, config.host, () => {
-    process.stdout.write(`\nThalpos is running at http://${config.host}:${config.port}\n\n`);
+    const { port } = server.address() as AddressInfo;
+    process.stdout.write(`\nThalpos is running at http://${config.host}:${port}\n\n`);
   });
 
   let stopping = false;

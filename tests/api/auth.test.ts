@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { createTestApp, signIn, type TestApp } from '../support/test-app';
+import { cookieValue, createTestApp, signIn, type TestApp } from '../support/test-app';
 
 describe('sign-in through the fake GitHub', () => {
   let t: TestApp;
@@ -21,6 +21,22 @@ describe('sign-in through the fake GitHub', () => {
     expect(url.searchParams.get('login')).toBe('demo-curator');
     expect(url.searchParams.get('state')).toBeTruthy();
     expect(url.searchParams.get('redirect_uri')).toMatch(/\/auth\/github\/callback$/);
+  });
+
+  it('never forwards the login hint to real GitHub', async () => {
+    const real = await createTestApp({
+      GITHUB_CLIENT_ID: 'real-id',
+      GITHUB_CLIENT_SECRET: 'real-secret',
+    });
+    try {
+      const res = await request(real.app).get('/auth/github?login=demo-admin').expect(302);
+      const url = new URL(res.headers.location);
+      expect(url.origin).toBe('https://github.com');
+      expect(url.searchParams.get('client_id')).toBe('real-id');
+      expect(url.searchParams.has('login')).toBe(false);
+    } finally {
+      await real.close();
+    }
   });
 
   it('shows an account chooser when no account is named', async () => {
@@ -64,6 +80,28 @@ describe('sign-in through the fake GitHub', () => {
     expect(sessionCookie).toMatch(/SameSite=Lax/i);
     expect(xsrfCookie).toBeDefined();
     expect(xsrfCookie).not.toMatch(/HttpOnly/i);
+  });
+
+  it('re-issues the XSRF-TOKEN cookie to a signed-in client that lacks it', async () => {
+    const agent = request.agent(t.app);
+    const start = await agent.get('/auth/github?login=demo-curator');
+    const authorize = await fetch(start.headers.location, { redirect: 'manual' });
+    const cb = new URL(authorize.headers.get('location')!);
+    const done = await agent.get(cb.pathname + cb.search).expect(302);
+    const sessionCookie = ([] as string[])
+      .concat(done.headers['set-cookie'] ?? [])
+      .find((c) => c.startsWith('thalpos.sid='))!
+      .split(';')[0];
+    const issued = cookieValue(done.headers['set-cookie'], 'XSRF-TOKEN');
+
+    const again = await request(t.app).get('/api/v1/me').set('Cookie', sessionCookie).expect(200);
+    expect(cookieValue(again.headers['set-cookie'], 'XSRF-TOKEN')).toBe(issued);
+    // A client that still has the cookie is not sent it again.
+    const withCookie = await request(t.app)
+      .get('/api/v1/me')
+      .set('Cookie', `${sessionCookie}; XSRF-TOKEN=${issued}`)
+      .expect(200);
+    expect(cookieValue(withCookie.headers['set-cookie'], 'XSRF-TOKEN')).toBeUndefined();
   });
 
   it('marks the cookies Secure behind a TLS-terminating proxy', async () => {
