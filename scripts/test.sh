@@ -35,4 +35,12 @@ for _ in $(seq 1 100); do grep -q '^http' "$fake_log" && break; sleep 0.1; done
 export FAKE_GITHUB_URL; FAKE_GITHUB_URL="$(grep -m1 '^http' "$fake_log")" || die "fake GitHub did not start: $(cat "$fake_log")"
 
 export NODE_ENV=test LOG_LEVEL=silent
-npx jest --ci "$@"
+results="$ROOT/artifacts/jest-results.json"
+mkdir -p "$(dirname "$results")"
+set +e
+npx jest --ci --json --outputFile="$results" "$@"
+status=$?
+set -e
+# One plain summary line for tools that read the closing line of a run.
+node -e "const r=require(process.argv[1]);console.log('Tests: '+r.numPassedTests+' passed, '+r.numFailedTests+' failed'+(r.numPendingTests?', '+r.numPendingTests+' skipped':''))" "$results" 2>/dev/null || true
+exit $status
