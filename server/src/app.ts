@@ -72,7 +72,10 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
       contentSecurityPolicy: {
         directives: {
           'connect-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'https://avatars.githubusercontent.com'],
+          // Everything the client needs ships with it: no outside hosts at all.
+          'img-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
           // Only upgrade where the site is actually served over TLS.
           'upgrade-insecure-requests': config.trustProxy ? [] : null,
         },

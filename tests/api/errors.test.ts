@@ -57,7 +57,10 @@ describe('error responses', () => {
 
   it('sets security headers, including a Content-Security-Policy', async () => {
     const res = await request(t.app).get('/api/health');
-    expect(res.headers['content-security-policy']).toContain("script-src 'self'");
+    const csp = res.headers['content-security-policy'];
+    expect(csp).toContain("script-src 'self'");
+    expect(csp).toContain("default-src 'self'");
+    expect(csp).not.toMatch(/https:/);
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['x-powered-by']).toBeUndefined();
     expect(res.headers['x-request-id']).toBeTruthy();
