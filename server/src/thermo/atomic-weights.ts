@@ -4,8 +4,8 @@
  * Source: IUPAC Commission on Isotopic Abundances and Atomic Weights (CIAAW), abridged standard
  * atomic weights, 2021 edition (five significant figures; conventional values for elements
  * whose standard atomic weight is an interval, e.g. H, C, N, O, S, Cl).
- * The values for H, C, N, O, F, Na, Al, Si, S, Cl, Ca and Fe were checked against a printed copy
- * of that table; the others are from memory.
+ * The values for H, C, N, O, F, Na, Al, Si, S, Cl, Ca and Fe were checked against a published
+ * listing of that table; the others are from memory.
  *
  * Elements without a standard atomic weight (no stable isotope and no characteristic terrestrial
  * isotopic composition) carry the mass number of their longest-lived known isotope, the common
