@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { cookieValue, createTestApp, signIn, type TestApp } from '../support/test-app';
+import { cookieValue, createTestApp, signIn, signInFlow, type TestApp } from '../support/test-app';
 
 describe('sign-in through the fake GitHub', () => {
   let t: TestApp;
@@ -68,12 +68,7 @@ describe('sign-in through the fake GitHub', () => {
   });
 
   it('issues an httpOnly, SameSite=Lax session cookie and a readable XSRF-TOKEN cookie', async () => {
-    const agent = request.agent(t.app);
-    const start = await agent.get('/auth/github?login=demo-reader');
-    const authorize = await fetch(start.headers.location, { redirect: 'manual' });
-    const cb = new URL(authorize.headers.get('location')!);
-    const done = await agent.get(cb.pathname + cb.search).expect(302);
-    const cookies = ([] as string[]).concat(done.headers['set-cookie'] ?? []);
+    const { setCookie: cookies } = await signInFlow(request.agent(t.app), 'demo-reader');
     const sessionCookie = cookies.find((c) => c.startsWith('thalpos.sid='));
     const xsrfCookie = cookies.find((c) => c.startsWith('XSRF-TOKEN='));
     expect(sessionCookie).toMatch(/HttpOnly/i);
@@ -83,16 +78,8 @@ describe('sign-in through the fake GitHub', () => {
   });
 
   it('re-issues the XSRF-TOKEN cookie to a signed-in client that lacks it', async () => {
-    const agent = request.agent(t.app);
-    const start = await agent.get('/auth/github?login=demo-curator');
-    const authorize = await fetch(start.headers.location, { redirect: 'manual' });
-    const cb = new URL(authorize.headers.get('location')!);
-    const done = await agent.get(cb.pathname + cb.search).expect(302);
-    const sessionCookie = ([] as string[])
-      .concat(done.headers['set-cookie'] ?? [])
-      .find((c) => c.startsWith('thalpos.sid='))!
-      .split(';')[0];
-    const issued = cookieValue(done.headers['set-cookie'], 'XSRF-TOKEN');
+    const { setCookie, xsrf: issued } = await signInFlow(request.agent(t.app), 'demo-curator');
+    const sessionCookie = setCookie.find((c) => c.startsWith('thalpos.sid='))!.split(';')[0];
 
     const again = await request(t.app).get('/api/v1/me').set('Cookie', sessionCookie).expect(200);
     expect(cookieValue(again.headers['set-cookie'], 'XSRF-TOKEN')).toBe(issued);

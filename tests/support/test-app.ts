@@ -32,9 +32,12 @@ export type Agent = ReturnType<typeof request.agent>;
 /**
  * Signs a demo account in the way a browser would: our /auth/github redirects to the fake
  * provider, the provider redirects back with a code, our callback exchanges it and sets the
- * session. Returns the CSRF token issued at sign-in.
+ * session. Returns the callback's response (its cookies) and the CSRF token issued at sign-in.
  */
-export async function signIn(agent: Agent, login: string): Promise<string> {
+export async function signInFlow(
+  agent: Agent,
+  login: string,
+): Promise<{ setCookie: string[]; xsrf: string }> {
   const start = await agent.get(`/auth/github?login=${encodeURIComponent(login)}`).expect(302);
   const authorize = await fetch(start.headers.location, { redirect: 'manual' });
   if (authorize.status !== 302) throw new Error(`fake provider answered ${authorize.status}`);
@@ -43,9 +46,15 @@ export async function signIn(agent: Agent, login: string): Promise<string> {
   if (done.status !== 302 || done.headers.location !== '/') {
     throw new Error(`sign-in of ${login} failed: ${done.status} ${JSON.stringify(done.body)}`);
   }
-  const token = cookieValue(done.headers['set-cookie'], 'XSRF-TOKEN');
-  if (!token) throw new Error('no XSRF-TOKEN cookie issued at sign-in');
-  return token;
+  const setCookie = ([] as string[]).concat(done.headers['set-cookie'] ?? []);
+  const xsrf = cookieValue(setCookie, 'XSRF-TOKEN');
+  if (!xsrf) throw new Error('no XSRF-TOKEN cookie issued at sign-in');
+  return { setCookie, xsrf };
+}
+
+/** Signs in and returns the CSRF token to send as X-XSRF-TOKEN. */
+export async function signIn(agent: Agent, login: string): Promise<string> {
+  return (await signInFlow(agent, login)).xsrf;
 }
 
 export function cookieValue(
