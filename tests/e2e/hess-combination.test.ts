@@ -38,6 +38,12 @@ describe('Calculate → Hess combination in the browser', () => {
     await step1.fill('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)');
     await page.locator('.check[data-check="invalid"]').waitFor({ state: 'detached' });
 
+    // Rows can be added and removed: a fifth step appears empty, and removing it restores four.
+    await page.getByRole('button', { name: 'Add step' }).click();
+    await page.getByRole('textbox', { name: 'Step 5 equation' }).waitFor();
+    await page.getByRole('button', { name: 'Remove step 5' }).click();
+    await page.getByRole('textbox', { name: 'Step 5 equation' }).waitFor({ state: 'detached' });
+
     await page.getByRole('button', { name: 'Calculate' }).click();
     await page.getByRole('heading', { name: 'Result' }).waitFor();
     // −802.3 + 283.0 + 3 × 241.8 = 206.1 kJ/mol; the condensation step is not needed.
