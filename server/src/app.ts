@@ -3,18 +3,17 @@ import fs from 'node:fs';
 import path from 'node:path';
 import connectPgSimple from 'connect-pg-simple';
 import express, { type Express } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import session from 'express-session';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppConfig } from './config/env';
 import type { DbHandle } from './db/client';
-import { AppError } from './lib/app-error';
 import type { Logger } from './lib/logger';
 import { csrfProtection } from './middleware/csrf';
 import { errorHandler } from './middleware/error-handler';
 import { notFoundHandler } from './middleware/not-found';
-import { authRouter } from './modules/auth/auth-router';
+import { perMinuteLimit } from './middleware/rate-limit';
+import { authRouter, SESSION_COOKIE } from './modules/auth/auth-router';
 import { createPassport, REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
 import {
   CALCULATE_PATHS,
@@ -34,7 +33,6 @@ export interface AppDeps {
   fakeGithubUrl?: string | null;
 }
 
-export const SESSION_COOKIE = 'thalpos.sid';
 const BODY_LIMIT = '100kb';
 
 /** Builds the application without listening, so tests drive it directly with supertest. */
@@ -123,15 +121,10 @@ export function createApp({ config, database, logger, fakeGithubUrl }: AppDeps):
     }),
   );
 
-  const apiLimiter = rateLimit({
-    windowMs: 60_000,
-    limit: config.apiRateLimit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: () => {
-      throw new AppError(429, 'rate_limited', 'Too many requests; slow down and try again shortly');
-    },
-  });
+  const apiLimiter = perMinuteLimit(
+    config.apiRateLimit,
+    'Too many requests; slow down and try again shortly',
+  );
   app.use('/api/v1', apiLimiter, usersRouter(users), calculateRouter());
   app.use(['/api', '/auth'], notFoundHandler);
 

@@ -12,9 +12,11 @@ declare module 'express-session' {
   }
 }
 
+const newToken = () => randomBytes(24).toString('base64url');
+
 /** Issues a fresh token bound to the session (called at sign-in) and sends it as a readable cookie. */
 export function issueCsrfToken(req: Request, res: Response): void {
-  req.session.csrfToken = randomBytes(24).toString('base64url');
+  req.session.csrfToken = newToken();
   setCsrfCookie(req, res);
 }
 
@@ -44,7 +46,7 @@ const matches = (a: string, b: string) => {
 export const csrfProtection: RequestHandler = (req, res, next) => {
   const signedIn = Boolean(req.user) && !req.headers.authorization?.startsWith('Bearer ');
   if (!signedIn) return next();
-  if (!req.session.csrfToken) req.session.csrfToken = randomBytes(24).toString('base64url');
+  if (!req.session.csrfToken) req.session.csrfToken = newToken();
   if (!hasCookie(req, req.session.csrfToken)) setCsrfCookie(req, res);
   if (SAFE_METHODS.has(req.method)) return next();
   const header = req.get(CSRF_HEADER);

@@ -1,9 +1,11 @@
 import { Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import type { AuthenticateOptions } from 'passport';
 import { AppError } from '../../lib/app-error';
-import { issueCsrfToken } from '../../middleware/csrf';
+import { CSRF_COOKIE, issueCsrfToken } from '../../middleware/csrf';
+import { perMinuteLimit } from '../../middleware/rate-limit';
 import type { PassportInstance } from './auth-strategy';
+
+export const SESSION_COOKIE = 'thalpos.sid';
 
 export interface AuthRouterOptions {
   passport: PassportInstance;
@@ -19,19 +21,7 @@ export function authRouter({
 }: AuthRouterOptions): Router {
   const router = Router();
   router.use(
-    rateLimit({
-      windowMs: 60_000,
-      limit: rateLimitPerMinute,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      handler: () => {
-        throw new AppError(
-          429,
-          'rate_limited',
-          'Too many sign-in attempts; wait a minute and try again',
-        );
-      },
-    }),
+    perMinuteLimit(rateLimitPerMinute, 'Too many sign-in attempts; wait a minute and try again'),
   );
 
   router.get('/github', (req, res, next) => {
@@ -60,8 +50,8 @@ export function authRouter({
     req.logout((err) => {
       if (err) return next(err);
       req.session.destroy(() => {
-        res.clearCookie('XSRF-TOKEN', { path: '/' });
-        res.clearCookie('thalpos.sid', { path: '/' });
+        res.clearCookie(CSRF_COOKIE, { path: '/' });
+        res.clearCookie(SESSION_COOKIE, { path: '/' });
         res.status(204).end();
       });
     });

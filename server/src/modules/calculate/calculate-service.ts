@@ -26,6 +26,14 @@ function parseField(text: string, field: string): Equation {
 const speciesLabel = (t: Term) =>
   t.species.kind === 'key' ? `[${t.species.key}]` : t.species.formula;
 
+/** One term as the parse route lists it; the coefficient is negative for reactants. */
+const speciesEntry = (t: Term, sign: 1 | -1) => ({
+  formula: speciesLabel(t),
+  phase: t.phase,
+  modification: t.modification,
+  coefficient: sign * t.coefficient.valueOf(),
+});
+
 /** What the equation editor shows while someone types: normal form, balance, a suggestion. */
 export function describeEquation(text: string) {
   const eq = parseField(text, 'equation');
@@ -41,18 +49,8 @@ export function describeEquation(text: string) {
     unknownComposition: report.unknownComposition,
     suggestion: report.balanced === false ? suggestBalance(eq) : null,
     species: [
-      ...eq.reactants.map((t) => ({
-        formula: speciesLabel(t),
-        phase: t.phase,
-        modification: t.modification,
-        coefficient: -t.coefficient.valueOf(),
-      })),
-      ...eq.products.map((t) => ({
-        formula: speciesLabel(t),
-        phase: t.phase,
-        modification: t.modification,
-        coefficient: t.coefficient.valueOf(),
-      })),
+      ...eq.reactants.map((t) => speciesEntry(t, -1)),
+      ...eq.products.map((t) => speciesEntry(t, 1)),
     ],
   };
 }
