@@ -14,9 +14,11 @@ fi
 ensure_postgres
 ensure_chromium
 
-# A cluster of its own on a free port: never touches the dev database or port 3000.
-cluster_start test "$(free_port)" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
-trap cluster_stop EXIT
+# A throw-away cluster of its own on a free port: never touches the dev database or port 3000,
+# and two runs at once (e.g. in two checkouts' terminals) do not share one.
+cluster_start "test-$$" "$(free_port)" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
+cluster_discard() { cluster_stop; rm -rf "$CLUSTER_DIR" "$PGPASSWORD_FILE"; }
+trap cluster_discard EXIT
 psql_admin -c 'drop database if exists thalpos_template' -c 'create database thalpos_template'
 export TEMPLATE_DATABASE_URL; TEMPLATE_DATABASE_URL="$(database_url thalpos_template)"
 DATABASE_URL="$TEMPLATE_DATABASE_URL" DEMO_DATA=1 npx tsx server/src/db/migrate-cli.ts
@@ -30,7 +32,7 @@ export CLIENT_DIST="$ROOT/dist/client/browser"
 fake_log="$(mktemp)"
 FAKE_GITHUB_PORT=0 "$ROOT/node_modules/.bin/tsx" server/src/fakes/main.ts > "$fake_log" 2>&1 &
 fake_pid=$!
-trap 'kill $fake_pid 2>/dev/null; cluster_stop; rm -f "$fake_log"' EXIT
+trap 'kill $fake_pid 2>/dev/null; cluster_discard; rm -f "$fake_log"' EXIT
 for _ in $(seq 1 100); do grep -q '^http' "$fake_log" && break; sleep 0.1; done
 export FAKE_GITHUB_URL; FAKE_GITHUB_URL="$(grep -m1 '^http' "$fake_log")" || die "fake GitHub did not start: $(cat "$fake_log")"
 
