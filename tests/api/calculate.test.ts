@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { HessAnswer, ParseAnswer } from '../../server/src/modules/calculate/calculate-schemas';
 import { createTestApp, signIn, type TestApp } from '../support/test-app';
 
 describe('public calculation routes', () => {
@@ -7,6 +8,44 @@ describe('public calculation routes', () => {
     t = await createTestApp();
   });
   afterAll(() => t.close());
+
+  describe('response contracts', () => {
+    it.each([
+      'CH4(g) + 2O2(g) → CO2(g) + 2 H2O(l)',
+      'C3H8(g) + O2(g) -> CO2(g) + H2O(l)',
+      'Fe^3+(aq) -> Fe^2+(aq)',
+      '[2-methylpropane](g) + 13/2 O2(g) -> 4 CO2(g) + 5 H2O(l)',
+      'C(cr,graphite) -> C(cr,diamond)',
+    ])('the parse answer for %s satisfies its schema exactly', async (equation) => {
+      const res = await request(t.app)
+        .post('/api/v1/equations/parse')
+        .send({ equation })
+        .expect(200);
+      // strict(): a field the route sends but the contract lacks fails too.
+      expect(() => ParseAnswer.strict().parse(res.body)).not.toThrow();
+      for (const species of res.body.species)
+        expect(() => ParseAnswer.shape.species.element.strict().parse(species)).not.toThrow();
+    });
+
+    it('the Hess answer satisfies its schema exactly, unused steps included', async () => {
+      const res = await request(t.app)
+        .post('/api/v1/hess/solve')
+        .send({
+          target: 'CO(g) + H2O(g) -> CO2(g) + H2(g)',
+          steps: [
+            { equation: 'C(cr,graphite) + O2(g) -> CO2(g)', deltaH: -393.51, uncertainty: 0.13 },
+            { equation: 'C(cr,graphite) + 1/2 O2(g) -> CO(g)', deltaH: -110.53 },
+            { equation: 'H2(g) + 1/2 O2(g) -> H2O(g)', deltaH: -241.826 },
+            { equation: 'H2(g) + 1/2 O2(g) -> H2O(l)', deltaH: -285.83 },
+          ],
+        })
+        .expect(200);
+      const body = HessAnswer.strict().parse(res.body);
+      for (const step of res.body.steps)
+        expect(() => HessAnswer.shape.steps.element.strict().parse(step)).not.toThrow();
+      expect(body.unused).toEqual([3]);
+    });
+  });
 
   describe('POST /api/v1/equations/parse', () => {
     it('normalises a balanced equation and lists its species, reactants negative', async () => {

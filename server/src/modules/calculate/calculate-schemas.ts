@@ -1,6 +1,12 @@
 import { z } from 'zod';
 
+/**
+ * The contract of the public calculation routes: request bodies (validated at the edge) and the
+ * answers the service builds (checked against these schemas in tests/api/calculate.test.ts).
+ * The client imports the inferred types with `import type` only.
+ */
 export const ENERGY_UNITS = ['kJ/mol', 'kcal/mol', 'J/mol'] as const;
+export const EnergyUnit = z.enum(ENERGY_UNITS);
 
 const equationText = z
   .string()
@@ -8,7 +14,38 @@ const equationText = z
   .min(1, 'is empty')
   .max(2000, 'is longer than 2000 characters');
 
+// ---- POST /api/v1/equations/parse ----
+
 export const ParseBody = z.object({ equation: equationText }).strict();
+
+const phase = z.enum(['g', 'l', 'cr', 's', 'am', 'aq']);
+
+export const ParsedSpecies = z.object({
+  /** The written formula, or `[key]` for a registry key. */
+  formula: z.string(),
+  phase: phase.nullable(),
+  /** Crystal modification such as "graphite"; null when none is written. */
+  modification: z.string().nullable(),
+  /** Negative for reactants. */
+  coefficient: z.number(),
+});
+
+export const ParseAnswer = z.object({
+  normalized: z.string(),
+  /** null when a registry-key term hides its composition. */
+  balanced: z.boolean().nullable(),
+  /** Products minus reactants, per element; empty when balanced. */
+  imbalance: z.record(z.string(), z.number()),
+  /** Products' charge minus reactants'. */
+  charge: z.number(),
+  /** Registry keys whose composition is unknown to the engine. */
+  unknownComposition: z.array(z.string()),
+  /** A balanced form of the equation, when it is unbalanced and one exists. */
+  suggestion: z.string().nullable(),
+  species: z.array(ParsedSpecies),
+});
+
+// ---- POST /api/v1/hess/solve ----
 
 export const HessBody = z
   .object({
@@ -25,8 +62,45 @@ export const HessBody = z
       )
       .min(1, 'needs at least one step')
       .max(50, 'takes at most 50 steps'),
-    unit: z.enum(ENERGY_UNITS).default('kJ/mol'),
+    unit: EnergyUnit.default('kJ/mol'),
   })
   .strict();
 
+export const HessStepAnswer = z.object({
+  /** 0-based position of the step in the request. */
+  index: z.number().int().nonnegative(),
+  /** mᵢ in Σ mᵢ·stepᵢ = target (negative: used reversed). */
+  multiplier: z.number(),
+  flipped: z.boolean(),
+  /** |mᵢ|. */
+  scale: z.number(),
+  /** mᵢ·ΔHᵢ in the answer's unit. */
+  deltaH: z.number(),
+  /** The step's equation as written, normalized. */
+  equation: z.string(),
+});
+
+export const HessAnswer = z.object({
+  /** The target equation, normalized. */
+  target: z.string(),
+  deltaH: z.number(),
+  /** Root sum of squares of the used steps' uncertainties; null if a used step has none. */
+  uncertainty: z.number().nullable(),
+  unit: EnergyUnit,
+  /** One multiplier per requested step, in order (0 for unused steps). */
+  multipliers: z.array(z.number()),
+  /** 0-based indices of steps not used. */
+  unused: z.array(z.number().int().nonnegative()),
+  /** Other multiplier sets reach the target too (all with the same ΔH). */
+  alternativeSolutions: z.boolean(),
+  /** Every step in request order; unused ones have multiplier 0. */
+  steps: z.array(HessStepAnswer),
+});
+
+export type EnergyUnitName = z.infer<typeof EnergyUnit>;
+export type ParseInput = z.infer<typeof ParseBody>;
+export type ParsedSpeciesAnswer = z.infer<typeof ParsedSpecies>;
+export type ParseAnswer = z.infer<typeof ParseAnswer>;
 export type HessInput = z.infer<typeof HessBody>;
+export type HessStepUseAnswer = z.infer<typeof HessStepAnswer>;
+export type HessAnswer = z.infer<typeof HessAnswer>;
