@@ -1,3 +1,7 @@
 export * from './users';
 export * from './audit';
 export * from './sessions';
+export * from './species';
+export * from './sources';
+export * from './revisions';
+export * from './releases';
