@@ -1,0 +1,95 @@
+import { z } from 'zod';
+import { readCsv, type ParseResult, type TextInput } from './csv-table';
+import {
+  cell,
+  checkModification,
+  checkReferences,
+  energyFields,
+  rowError,
+  validateCells,
+} from './cells';
+import { speciesPhaseKey } from './formation-csv';
+import type { CrossReferences, TransitionRow } from './row-types';
+
+const FILE = 'transitions.csv';
+export const TRANSITION_COLUMNS = [
+  'species',
+  'from_phase',
+  'from_modification',
+  'to_phase',
+  'to_modification',
+  'temperature_k',
+  'value',
+  'unit',
+  'uncertainty',
+  'uncertainty_basis',
+  'method',
+  'standard_pressure_pa',
+  'source',
+  'from_memory',
+  'notes',
+] as const;
+
+const schema = z.object({
+  species: cell.required,
+  from_phase: cell.phase,
+  from_modification: cell.modification,
+  to_phase: cell.phase,
+  to_modification: cell.modification,
+  temperature_k: cell.kelvin,
+  value: cell.decimal,
+  unit: cell.unit,
+  uncertainty: cell.positiveDecimal,
+  uncertainty_basis: cell.basis,
+  method: cell.method,
+  standard_pressure_pa: cell.pressure,
+  source: cell.required,
+  from_memory: cell.fromMemory,
+  notes: cell.optional,
+});
+
+/** Phase transitions in the heating direction: ΔtrsH of going from_phase → to_phase at T. */
+export function parseTransitionsCsv(
+  input: TextInput,
+  refs: CrossReferences = {},
+): ParseResult<TransitionRow> {
+  const { records, errors } = readCsv(input, FILE, TRANSITION_COLUMNS);
+  const rows: TransitionRow[] = [];
+  const lines = new Map<string, number>();
+  for (const record of records) {
+    const c = validateCells(schema, record, FILE, errors);
+    if (c === null) continue;
+    const before = errors.length;
+    const report = (message: string, column: string): void => {
+      rowError(errors, FILE, record.line, message, column);
+    };
+    checkModification(c.from_phase, c.from_modification, 'from_modification', report);
+    checkModification(c.to_phase, c.to_modification, 'to_modification', report);
+    checkReferences(refs, c.species, c.source, report);
+    const from = speciesPhaseKey(c.species, c.from_phase, c.from_modification);
+    const to = speciesPhaseKey(c.species, c.to_phase, c.to_modification);
+    if (from === to) report('a transition needs two different phases', 'to_phase');
+    const energy = energyFields(c, report);
+    const id = `${from} → ${to}`;
+    const earlier = lines.get(id);
+    if (earlier !== undefined) report(`${id} already on line ${earlier}`, 'species');
+    else lines.set(id, record.line);
+    if (errors.length > before) continue;
+    rows.push({
+      line: record.line,
+      species: c.species,
+      fromPhase: c.from_phase,
+      fromModification: c.from_modification,
+      toPhase: c.to_phase,
+      toModification: c.to_modification,
+      temperatureK: c.temperature_k,
+      ...energy,
+      method: c.method,
+      standardPressurePa: c.standard_pressure_pa,
+      source: c.source,
+      fromMemory: c.from_memory,
+      notes: c.notes,
+    });
+  }
+  return { rows, errors };
+}
