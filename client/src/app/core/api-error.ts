@@ -18,15 +18,23 @@ export class ApiError extends Error {
     /** Any further fields of the server's `error` object (e.g. `position`). */
     readonly details: Readonly<Record<string, unknown>> = {},
     readonly url: string | null = null,
+    /** Seconds to wait before trying again (the `Retry-After` of a 429 or 503), when sent. */
+    readonly retryAfter: number | null = null,
   ) {
     super(message);
   }
 
+  /** Too many requests: a pause, never a sign that the session ended. */
+  get rateLimited(): boolean {
+    return this.status === 429;
+  }
+
   static from(response: HttpErrorResponse): ApiError {
+    const retryAfter = retryAfterSeconds(response.headers?.get('Retry-After') ?? null);
     const body = serverError(response.error);
     if (body) {
       const { code, message, ...details } = body.error;
-      return new ApiError(response.status, code, message, details, response.url);
+      return new ApiError(response.status, code, message, details, response.url, retryAfter);
     }
     return new ApiError(
       response.status,
@@ -34,6 +42,7 @@ export class ApiError extends Error {
       fallbackMessage(response.status),
       {},
       response.url,
+      retryAfter,
     );
   }
 }
@@ -50,6 +59,23 @@ export function readableMessage(error: unknown): string {
 export function httpStatus(error: unknown): number | null {
   if (error instanceof ApiError || error instanceof HttpErrorResponse) return error.status;
   return null;
+}
+
+/** `Retry-After` as whole seconds from now: either delta-seconds or an HTTP date. */
+export function retryAfterSeconds(header: string | null, now = Date.now()): number | null {
+  if (header === null || header.trim() === '') return null;
+  if (/^\d+$/.test(header.trim())) return Number(header.trim());
+  const at = Date.parse(header);
+  return Number.isNaN(at) ? null : Math.max(0, Math.ceil((at - now) / 1000));
+}
+
+/** The one calm sentence shown for a 429, with the wait when the server said it. */
+export function rateLimitMessage(retryAfter: number | null): string {
+  const wait =
+    retryAfter === null
+      ? 'Wait a moment'
+      : `Try again in ${retryAfter} ${retryAfter === 1 ? 'second' : 'seconds'}`;
+  return `Thalpos is receiving many requests from this address right now. ${wait}; nothing you entered is lost.`;
 }
 
 function serverError(body: unknown): ApiErrorBody | null {

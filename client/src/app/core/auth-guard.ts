@@ -6,7 +6,8 @@ import { Session } from './session';
 
 /**
  * Lets a route match only for signed-in users holding one of `roles`; everyone else is sent
- * to the "Not allowed" page, which names the roles needed.
+ * to the "Not allowed" page, which names the roles needed. When the session could not be read
+ * (server busy: 429, or down) nobody is refused: the page says so and offers to try again.
  */
 export function roleGuard(...roles: Role[]): CanMatchFn {
   return async () => {
@@ -14,6 +15,10 @@ export function roleGuard(...roles: Role[]): CanMatchFn {
     const router = inject(Router);
     const user = await session.whenKnown();
     if (user && roles.includes(user.role)) return true;
-    return router.createUrlTree(['/not-allowed'], { queryParams: { needs: roles.join(',') } });
+    const needs = roles.join(',');
+    // The page asked for, so signing in (or trying again) can return to it.
+    const from = router.currentNavigation()?.extractedUrl.toString() ?? '/';
+    const unavailable = !user && session.status() === 'unavailable' ? 1 : undefined;
+    return router.createUrlTree(['/not-allowed'], { queryParams: { needs, from, unavailable } });
   };
 }

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { firstValueFrom } from 'rxjs';
 
-import { ApiError, readableMessage } from './api-error';
+import { ApiError, rateLimitMessage, readableMessage, retryAfterSeconds } from './api-error';
 import { errorInterceptor } from './error-interceptor';
 
 describe('errorInterceptor', () => {
@@ -94,6 +94,29 @@ describe('errorInterceptor', () => {
     expect(error.status).toBe(0);
     expect(error.code).toBe('network_error');
     expect(error.message).toContain('cannot be reached');
+  });
+
+  it('reads a 429 as a pause with its wait time, never as signed out', async () => {
+    const error = await failureOf((url) =>
+      backend
+        .expectOne(url)
+        .flush(
+          { error: { code: 'rate_limited', message: 'Too many requests; slow down.' } },
+          { status: 429, statusText: 'Too Many Requests', headers: { 'Retry-After': '42' } },
+        ),
+    );
+
+    expect(error.status).toBe(429);
+    expect(error.rateLimited).toBe(true);
+    expect(error.retryAfter).toBe(42);
+    expect(error.code).not.toBe('unauthenticated');
+    expect(rateLimitMessage(error.retryAfter)).toContain('Try again in 42 seconds');
+  });
+
+  it('reads Retry-After given as an HTTP date', () => {
+    const now = Date.parse('2026-12-02T03:00:00Z');
+    expect(retryAfterSeconds('Wed, 02 Dec 2026 03:00:30 GMT', now)).toBe(30);
+    expect(retryAfterSeconds(null, now)).toBeNull();
   });
 
   it('lets successful answers through untouched', async () => {

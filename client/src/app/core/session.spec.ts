@@ -4,7 +4,7 @@ import { TestBed } from '@angular/core/testing';
 
 import { errorInterceptor } from './error-interceptor';
 import type { SignedInUser } from './models/user';
-import { Session } from './session';
+import { Session, signInHref } from './session';
 
 const curator: SignedInUser = {
   id: 4,
@@ -80,6 +80,40 @@ describe('Session', () => {
     expect(session.problem()).toBe('Database is down.');
   });
 
+  it('does not read a 429 from /api/v1/me as signed out: the user stays, with the wait time', async () => {
+    const first = session.refresh();
+    backend.expectOne('/api/v1/me').flush(curator);
+    await first;
+
+    const again = session.refresh();
+    backend
+      .expectOne('/api/v1/me')
+      .flush(
+        { error: { code: 'rate_limited', message: 'Too many requests.' } },
+        { status: 429, statusText: 'Too Many Requests', headers: { 'Retry-After': '30' } },
+      );
+
+    await expect(again).resolves.toEqual(curator);
+    expect(session.status()).toBe('signed-in');
+    expect(session.user()).toEqual(curator);
+    expect(session.retryAfter()).toBe(30);
+    expect(session.problem()).toContain('Try again in 30 seconds');
+  });
+
+  it('is unavailable, not anonymous, when the first read meets a 429', async () => {
+    const known = session.refresh();
+    backend
+      .expectOne('/api/v1/me')
+      .flush(
+        { error: { code: 'rate_limited', message: 'Too many requests.' } },
+        { status: 429, statusText: 'Too Many Requests' },
+      );
+
+    await expect(known).resolves.toBeNull();
+    expect(session.status()).toBe('unavailable');
+    expect(session.status()).not.toBe('anonymous');
+  });
+
   it('asks the server only once while the first read is pending', async () => {
     const first = session.whenKnown();
     const second = session.whenKnown();
@@ -126,5 +160,14 @@ describe('Session', () => {
 
     await expect(signedOut).rejects.toMatchObject({ status: 403, message: 'Invalid XSRF token.' });
     expect(session.user()).toEqual(curator);
+  });
+
+  it('builds a sign-in address that returns to same-site paths only', () => {
+    expect(signInHref('/calculate/hess?target=H2(g)%20-%3E%20H2(g)')).toBe(
+      '/auth/github?returnTo=%2Fcalculate%2Fhess%3Ftarget%3DH2(g)%2520-%253E%2520H2(g)',
+    );
+    expect(signInHref('//evil.example/x')).toBe('/auth/github');
+    expect(signInHref('https://evil.example/')).toBe('/auth/github');
+    expect(signInHref(null)).toBe('/auth/github');
   });
 });

@@ -1,10 +1,10 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 
 import { ROLES, type Role } from '../models/user';
-import { Session, SIGN_IN_URL } from '../session';
+import { Session, signInHref } from '../session';
 
 /** Where the role guard sends people who may not open a page. */
 @Component({
@@ -16,10 +16,28 @@ import { Session, SIGN_IN_URL } from '../session';
 })
 export class NotAllowedPage {
   protected readonly session = inject(Session);
-  protected readonly signInUrl = SIGN_IN_URL;
-
+  private readonly router = inject(Router);
   /** Query parameter `needs`: the roles the refused page requires, comma-separated. */
   readonly needs = input<string | undefined>();
+  /** Query parameter `unavailable`: the session could not be read, so nothing was refused. */
+  readonly unavailable = input<string | undefined>();
+  /** Query parameter `from`: the page that was asked for. */
+  readonly from = input<string | undefined>();
+
+  protected readonly sessionUnknown = computed(
+    () => this.unavailable() !== undefined && this.session.user() === null,
+  );
+  /** Back to the page asked for, same-site paths only. */
+  protected readonly retryUrl = computed(() => {
+    const from = this.from() ?? '/';
+    return from.startsWith('/') && !from.startsWith('//') ? from : '/';
+  });
+  protected readonly signInUrl = computed(() => signInHref(this.from()));
+
+  protected async retry(): Promise<void> {
+    await this.session.refresh();
+    await this.router.navigateByUrl(this.retryUrl());
+  }
 
   protected readonly neededRoles = computed(() =>
     (this.needs() ?? '')
