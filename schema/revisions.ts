@@ -140,7 +140,7 @@ export const revisions = pgTable(
 
 /**
  * One temperature range of a heat-capacity set. NASA 7-coefficient sets have two ranges
- * (a1…a7 each); Shomate sets one or more (A B C D E, optionally F H).
+ * (a1…a7 each); Shomate sets one or more (A…H, F G H optional); coefficients are c1… as the source printed them.
  */
 export const heatCapacityRanges = pgTable(
   'heat_capacity_ranges',
@@ -156,7 +156,7 @@ export const heatCapacityRanges = pgTable(
   (t) => [
     primaryKey({ columns: [t.revisionId, t.seq] }),
     check('heat_capacity_ranges_order', sql`${t.tMin} > 0 and ${t.tMin} < ${t.tMax}`),
-    check('heat_capacity_ranges_coefficients', sql`cardinality(${t.coefficients}) between 5 and 7`),
+    check('heat_capacity_ranges_coefficients', sql`cardinality(${t.coefficients}) between 5 and 8`),
   ],
 );
 

@@ -37,6 +37,7 @@ export const species = pgTable(
     inchi: text(),
     inchiKey: text(),
     smiles: text(),
+    notes: text(),
     createdBy: integer().references(() => users.id),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
