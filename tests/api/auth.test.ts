@@ -23,6 +23,57 @@ describe('sign-in through the fake GitHub', () => {
     expect(url.searchParams.get('redirect_uri')).toMatch(/\/auth\/github\/callback$/);
   });
 
+  it('uses PKCE: the authorize request carries an S256 code challenge', async () => {
+    const res = await request(t.app).get('/auth/github?login=demo-curator').expect(302);
+    const url = new URL(res.headers.location);
+    expect(url.searchParams.get('code_challenge_method')).toBe('S256');
+    expect(url.searchParams.get('code_challenge')).toMatch(/^[A-Za-z0-9_-]{43}$/);
+  });
+
+  describe('returning to where the user was', () => {
+    const target =
+      '/calculate/hess?target=CH4(g)%20-%3E%20C(graphite)%20%2B%202%20H2(g)&unit=kJ%2Fmol';
+
+    it('redirects to the path given as returnTo after the callback', async () => {
+      const { location } = await signInFlow(request.agent(t.app), 'demo-reader', target);
+      expect(location).toBe(target);
+    });
+
+    it.each([
+      'https://evil.example/steal',
+      '//evil.example/steal',
+      '/\\evil.example',
+      'calculate/hess',
+      '/a//b',
+    ])('goes home instead of to %p', async (returnTo) => {
+      const { location } = await signInFlow(request.agent(t.app), 'demo-reader', returnTo);
+      expect(location).toBe('/');
+    });
+
+    it('goes home when no returnTo was given', async () => {
+      expect((await signInFlow(request.agent(t.app), 'demo-reader')).location).toBe('/');
+    });
+  });
+
+  it('audits the seeded demo roles, once each, with no acting user', async () => {
+    const rows = await t.db.pool.query(
+      `select a.actor_id, a.after, u.login, u.role from audit_log a
+         join users u on u.id::text = a.entity_id
+        where a.action = 'user.seeded' order by u.login`,
+    );
+    expect(rows.rows.map((r) => r.login)).toEqual([
+      'demo-admin',
+      'demo-curator',
+      'demo-editor',
+      'demo-editor-2',
+      'demo-reader',
+    ]);
+    for (const r of rows.rows) {
+      expect(r.actor_id).toBeNull();
+      expect(r.after).toEqual({ login: r.login, role: expect.any(String) });
+    }
+  });
+
   it('never forwards the login hint to real GitHub', async () => {
     const real = await createTestApp({
       GITHUB_CLIENT_ID: 'real-id',
@@ -118,20 +169,32 @@ describe('sign-in through the fake GitHub', () => {
     expect(res.headers.location).toBe('/?signin=failed');
   });
 
-  it('creates a new GitHub user as a reader and audits it', async () => {
-    // The fake only knows the demo accounts; a brand-new user is simulated by removing one first.
-    await t.db.pool.query(`delete from users where login = 'demo-reader'`);
-    const agent = request.agent(t.app);
-    await signIn(agent, 'demo-reader');
-    const me = await agent.get('/api/v1/me').expect(200);
-    expect(me.body.role).toBe('reader');
-    const audit = await t.db.pool.query(
-      `select action, after from audit_log where entity_type = 'user' and entity_id = $1`,
-      [String(me.body.id)],
-    );
-    expect(audit.rows).toEqual([
-      { action: 'user.created', after: { login: 'demo-reader', role: 'reader' } },
-    ]);
+  it('creates a new GitHub user as a reader and audits the creation and the sign-in', async () => {
+    // The fake only knows the demo accounts; a brand-new user is simulated by removing one
+    // first, on a database of its own where that account has no audit history yet.
+    const fresh = await createTestApp();
+    try {
+      await fresh.db.pool.query(`delete from users where login = 'demo-reader'`);
+      const agent = request.agent(fresh.app);
+      await signIn(agent, 'demo-reader');
+      const me = await agent.get('/api/v1/me').expect(200);
+      expect(me.body.role).toBe('reader');
+      const audit = await fresh.db.pool.query(
+        `select actor_id, action, after from audit_log
+          where entity_type = 'user' and entity_id = $1 order by id`,
+        [String(me.body.id)],
+      );
+      expect(audit.rows).toEqual([
+        {
+          actor_id: me.body.id,
+          action: 'user.created',
+          after: { login: 'demo-reader', role: 'reader' },
+        },
+        { actor_id: me.body.id, action: 'user.signed_in', after: null },
+      ]);
+    } finally {
+      await fresh.close();
+    }
   });
 
   it('signs out with POST /auth/logout (CSRF token required)', async () => {
@@ -139,8 +202,13 @@ describe('sign-in through the fake GitHub', () => {
     const xsrf = await signIn(agent, 'demo-editor');
     await agent.post('/auth/logout').expect(403);
     await agent.get('/api/v1/me').expect(200);
+    const me = (await agent.get('/api/v1/me').expect(200)).body;
     await agent.post('/auth/logout').set('X-XSRF-TOKEN', xsrf).expect(204);
     await agent.get('/api/v1/me').expect(401);
+    const audit = await t.db.pool.query(
+      `select actor_id, entity_id from audit_log where action = 'user.signed_out'`,
+    );
+    expect(audit.rows).toEqual([{ actor_id: me.id, entity_id: String(me.id) }]);
   });
 
   it('rate-limits the sign-in routes with a JSON 429', async () => {

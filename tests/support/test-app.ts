@@ -37,19 +37,22 @@ export type Agent = ReturnType<typeof request.agent>;
 export async function signInFlow(
   agent: Agent,
   login: string,
-): Promise<{ setCookie: string[]; xsrf: string }> {
-  const start = await agent.get(`/auth/github?login=${encodeURIComponent(login)}`).expect(302);
+  returnTo?: string,
+): Promise<{ setCookie: string[]; xsrf: string; location: string }> {
+  const query = new URLSearchParams({ login });
+  if (returnTo !== undefined) query.set('returnTo', returnTo);
+  const start = await agent.get(`/auth/github?${query}`).expect(302);
   const authorize = await fetch(start.headers.location, { redirect: 'manual' });
   if (authorize.status !== 302) throw new Error(`fake provider answered ${authorize.status}`);
   const callback = new URL(authorize.headers.get('location') ?? '');
   const done = await agent.get(callback.pathname + callback.search);
-  if (done.status !== 302 || done.headers.location !== '/') {
+  if (done.status !== 302 || !done.headers.location?.startsWith('/')) {
     throw new Error(`sign-in of ${login} failed: ${done.status} ${JSON.stringify(done.body)}`);
   }
   const setCookie = ([] as string[]).concat(done.headers['set-cookie'] ?? []);
   const xsrf = cookieValue(setCookie, 'XSRF-TOKEN');
   if (!xsrf) throw new Error('no XSRF-TOKEN cookie issued at sign-in');
-  return { setCookie, xsrf };
+  return { setCookie, xsrf, location: done.headers.location };
 }
 
 /** Signs in and returns the CSRF token to send as X-XSRF-TOKEN. */

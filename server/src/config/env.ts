@@ -8,7 +8,10 @@ const EnvSchema = z
     NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
     HOST: z.string().default('127.0.0.1'),
     PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+    /** The application's own role: only the rights it uses (see README, "Security"). */
     DATABASE_URL: z.string().url(),
+    /** The schema owner's connection, for migrations at start-up; defaults to DATABASE_URL. */
+    MIGRATION_DATABASE_URL: z.string().url().optional(),
     SESSION_SECRET: z.string().min(16).optional(),
     GITHUB_CLIENT_ID: z.string().min(1).optional(),
     GITHUB_CLIENT_SECRET: z.string().min(1).optional(),
@@ -28,7 +31,9 @@ const EnvSchema = z
     /** The fake provider signs anyone in as a demo account: never on in production by default. */
     FAKE_SIGN_IN: bool.optional(),
     AUTH_RATE_LIMIT: z.coerce.number().int().positive().default(60),
+    /** Requests per minute to /api/v1: per address when anonymous, per user when signed in. */
     API_RATE_LIMIT: z.coerce.number().int().positive().default(600),
+    API_RATE_LIMIT_SIGNED_IN: z.coerce.number().int().positive().default(2400),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
@@ -58,6 +63,7 @@ export interface AppConfig {
   host: string;
   port: number;
   databaseUrl: string;
+  migrationDatabaseUrl: string;
   sessionSecret: string;
   /** Real GitHub credentials, or null when the fake provider stands in. */
   github: { clientId: string; clientSecret: string } | null;
@@ -70,6 +76,7 @@ export interface AppConfig {
   demoData: boolean;
   authRateLimit: number;
   apiRateLimit: number;
+  apiRateLimitSignedIn: number;
 }
 
 /** Parses the environment once at start-up; a bad value stops the process with a clear message. */
@@ -85,6 +92,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     host: e.HOST,
     port: e.PORT,
     databaseUrl: e.DATABASE_URL,
+    migrationDatabaseUrl: e.MIGRATION_DATABASE_URL ?? e.DATABASE_URL,
     sessionSecret: e.SESSION_SECRET ?? 'thalpos-development-secret-not-for-production',
     github:
       e.GITHUB_CLIENT_ID && e.GITHUB_CLIENT_SECRET
@@ -101,5 +109,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     demoData: e.DEMO_DATA ?? e.NODE_ENV !== 'production',
     authRateLimit: e.AUTH_RATE_LIMIT,
     apiRateLimit: e.API_RATE_LIMIT,
+    apiRateLimitSignedIn: Math.max(e.API_RATE_LIMIT_SIGNED_IN, e.API_RATE_LIMIT),
   };
 }

@@ -1,22 +1,35 @@
-import { users } from '../../../schema';
 import { DEMO_ACCOUNTS } from '../fakes/demo-accounts';
+import { recordAudits } from '../modules/audit/audit-repository';
+import { usersRepository } from '../modules/users/users-repository';
 import type { Database } from './client';
 
 /**
  * Loads the demo data once: rows that already exist (matched by GitHub id) are left alone, so
- * role changes made in the running app survive a restart.
+ * role changes made in the running app survive a restart. Each account it creates, and the
+ * role it is given, is audited in the same transaction (actor: the system, i.e. none).
  */
 export async function seedDemoData(db: Database): Promise<void> {
-  await db
-    .insert(users)
-    .values(
+  await db.transaction(async (tx) => {
+    const inserted = await usersRepository.insertMissing(
+      tx,
       DEMO_ACCOUNTS.map((a) => ({
         githubId: a.githubId,
         login: a.login,
         name: a.name,
         email: a.email,
+        avatarUrl: null,
         role: a.role,
       })),
-    )
-    .onConflictDoNothing({ target: users.githubId });
+    );
+    await recordAudits(
+      tx,
+      inserted.map((u) => ({
+        actorId: null,
+        action: 'user.seeded',
+        entityType: 'user',
+        entityId: u.id,
+        after: { login: u.login, role: u.role },
+      })),
+    );
+  });
 }

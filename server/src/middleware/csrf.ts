@@ -1,6 +1,7 @@
 import { randomBytes, timingSafeEqual } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import { AppError } from '../lib/app-error';
+import { viaBearerToken } from './bearer-auth';
 
 export const CSRF_COOKIE = 'XSRF-TOKEN';
 export const CSRF_HEADER = 'x-xsrf-token';
@@ -40,12 +41,12 @@ const matches = (a: string, b: string) => {
 };
 
 /**
- * Cookie-authenticated mutations must echo the session's token in X-XSRF-TOKEN. Bearer-token
- * requests and anonymous ones carry no ambient credentials and are exempt.
+ * Cookie-authenticated mutations must echo the session's token in X-XSRF-TOKEN. Anonymous
+ * requests carry no ambient credentials, and a request that a verified bearer token
+ * authenticated ignores the cookie: both are exempt. A bearer header alone exempts nothing.
  */
 export const csrfProtection: RequestHandler = (req, res, next) => {
-  const signedIn = Boolean(req.user) && !req.headers.authorization?.startsWith('Bearer ');
-  if (!signedIn) return next();
+  if (!req.user || viaBearerToken(res)) return next();
   if (!req.session.csrfToken) req.session.csrfToken = newToken();
   if (!hasCookie(req, req.session.csrfToken)) setCsrfCookie(req, res);
   if (SAFE_METHODS.has(req.method)) return next();

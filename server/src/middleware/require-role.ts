@@ -1,14 +1,19 @@
-import type { RequestHandler } from 'express';
-import { ROLES, type Role } from '../../../schema';
+import type { Request, RequestHandler, Response } from 'express';
+import type { Role } from '../../../schema';
 import { forbidden, unauthenticated } from '../lib/app-error';
+import { hasRole } from '../modules/users/roles';
 
-const rank = (role: Role) => ROLES.indexOf(role);
+export interface RoleGuardOptions {
+  /** Called before a signed-in caller is refused, e.g. to audit a refused privileged attempt. */
+  onRefused?: (req: Request, res: Response, actor: Express.User) => Promise<void>;
+}
 
 /** The one role guard: the signed-in user must hold `minimum` or a higher role. */
-export function requireRole(minimum: Role): RequestHandler {
-  return (req, _res, next) => {
+export function requireRole(minimum: Role, options: RoleGuardOptions = {}): RequestHandler {
+  return async (req, res, next) => {
     if (!req.user) throw unauthenticated();
-    if (rank(req.user.role) < rank(minimum)) {
+    if (!hasRole(req.user.role, minimum)) {
+      await options.onRefused?.(req, res, req.user);
       throw forbidden(`This needs the ${minimum} role; you are signed in as ${req.user.role}`);
     }
     next();

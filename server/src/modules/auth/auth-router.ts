@@ -1,14 +1,27 @@
 import { Router } from 'express';
 import type { AuthenticateOptions } from 'passport';
+import type { Clock } from '../../adapters';
 import { AppError } from '../../lib/app-error';
 import { CSRF_COOKIE, issueCsrfToken } from '../../middleware/csrf';
 import { perMinuteLimit } from '../../middleware/rate-limit';
+import { PENDING_SIGN_IN_MS, SESSION_COOKIE, startSignedInSession } from '../../middleware/session';
+import type { UsersService } from '../users/users-service';
 import type { PassportInstance } from './auth-strategy';
+import { safeReturnTo } from './return-to';
 
-export const SESSION_COOKIE = 'thalpos.sid';
+export { SESSION_COOKIE };
+
+declare module 'express-session' {
+  interface SessionData {
+    /** The site path to go back to after the OAuth round trip. */
+    returnTo?: string;
+  }
+}
 
 export interface AuthRouterOptions {
   passport: PassportInstance;
+  users: UsersService;
+  clock: Clock;
   /** Only the fake provider may be asked to sign a named account in without a page. */
   allowLoginHint: boolean;
   rateLimitPerMinute: number;
@@ -16,6 +29,8 @@ export interface AuthRouterOptions {
 
 export function authRouter({
   passport,
+  users,
+  clock,
   allowLoginHint,
   rateLimitPerMinute,
 }: AuthRouterOptions): Router {
@@ -28,6 +43,11 @@ export function authRouter({
     const login = typeof req.query.login === 'string' ? req.query.login : undefined;
     // GitHub's own `login` parameter only suggests an account; the fake honours it outright.
     const options = (allowLoginHint && login ? { login } : {}) as AuthenticateOptions;
+    // The session now holds only the OAuth state (and where to return): it need not live long.
+    req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
+    const returnTo = safeReturnTo(req.query.returnTo);
+    if (returnTo) req.session.returnTo = returnTo;
+    else delete req.session.returnTo;
     passport.authenticate('github', options)(req, res, next);
   });
 
@@ -38,24 +58,37 @@ export function authRouter({
         return next(new AppError(502, 'sign_in_failed', 'Sign-in with GitHub failed; try again'));
       }
       if (!user) return res.redirect('/?signin=failed');
+      // Read before logIn: it regenerates the session (a fresh id against fixation).
+      const returnTo = safeReturnTo(req.session.returnTo) ?? '/';
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
+        startSignedInSession(req.session, clock);
         issueCsrfToken(req, res);
-        res.redirect('/');
+        res.redirect(returnTo);
       });
     })(req, res, next);
   });
 
   router.post('/logout', (req, res, next) => {
+    const userId = req.user?.id;
+    if (!req.session) {
+      // A token request has no session to end.
+      res.status(204).end();
+      return;
+    }
     req.logout((err) => {
       if (err) return next(err);
-      req.session.destroy(() => {
+      req.session.destroy(async () => {
         res.clearCookie(CSRF_COOKIE, { path: '/' });
         res.clearCookie(SESSION_COOKIE, { path: '/' });
-        res.status(204).end();
+        try {
+          if (userId !== undefined) await users.recordSignOut(userId);
+          res.status(204).end();
+        } catch (auditErr) {
+          next(auditErr);
+        }
       });
     });
   });
-
   return router;
 }

@@ -36,8 +36,10 @@ export function createPassport(users: UsersService, github: GithubEndpoints): Pa
     tokenURL: `${github.webBase}/login/oauth/access_token`,
     userProfileURL: `${github.apiBase}/user`,
     scope: [],
-    // Binds the authorize round trip to this browser's session (OAuth `state`).
+    // Binds the authorize round trip to this browser's session (OAuth `state`), and the code
+    // to this client with PKCE (S256): an intercepted code cannot be redeemed elsewhere.
     state: true,
+    pkce: true,
   };
   const strategy = new GitHubStrategy(
     // passport-oauth2 takes `state: true`; the passport-github2 typings only know a string.

@@ -14,3 +14,8 @@ export function healthRouter(pool: Pool): Router {
   });
   return router;
 }
+
+/** `GET /api/health`: liveness and database reachability (mounted under /api). */
+export function createHealthModule({ pool }: { pool: Pool }) {
+  return { router: healthRouter(pool) };
+}

@@ -1,6 +1,8 @@
 import { asc, eq, getTableColumns, sql } from 'drizzle-orm';
 import { users, type Role, type UserRow } from '../../../../schema';
 import type { Database, Tx } from '../../db/client';
+import { AppError } from '../../lib/app-error';
+import { hasRole } from './roles';
 
 type Queryable = Database | Tx;
 
@@ -27,14 +29,36 @@ export const usersRepository = {
     return row;
   },
 
-  /** Locks every admin row: two admins demoting each other at once cannot both succeed. */
+  /**
+   * Locks every admin row, in id order so concurrent callers cannot deadlock: two admins
+   * demoting each other at once cannot both succeed.
+   */
   async lockAdmins(tx: Tx): Promise<number> {
     const rows = await tx
       .select({ id: users.id })
       .from(users)
       .where(eq(users.role, 'admin'))
+      .orderBy(asc(users.id))
       .for('update');
     return rows.length;
+  },
+
+  /**
+   * Every privileged transition calls this first inside its transaction: it locks the acting
+   * user's row (`SELECT … FOR UPDATE`) and re-reads the role under that lock, so a role taken
+   * away while the request was on its way is honoured; a demotion that commits later waits for
+   * this transaction. Throws 403 `role_revoked` when the actor no longer holds `minimum`.
+   */
+  async assertActorRoleLocked(tx: Tx, actorId: number, minimum: Role): Promise<UserRow> {
+    const [actor] = await tx.select().from(users).where(eq(users.id, actorId)).for('update');
+    if (!actor || !hasRole(actor.role, minimum)) {
+      throw new AppError(
+        403,
+        'role_revoked',
+        `This needs the ${minimum} role, which your account no longer holds`,
+      );
+    }
+    return actor;
   },
 
   async setRole(tx: Tx, id: number, role: Role): Promise<UserRow> {
@@ -46,6 +70,15 @@ export const usersRepository = {
    * Creates the user on first sign-in or refreshes the profile afterwards. `inserted` tells the
    * two apart (xmax is 0 only for a freshly inserted row).
    */
+  /** Inserts the accounts that do not exist yet (matched by GitHub id); returns those inserted. */
+  insertMissing(db: Queryable, rows: (GithubIdentity & { role: Role })[]): Promise<UserRow[]> {
+    return db
+      .insert(users)
+      .values(rows)
+      .onConflictDoNothing({ target: users.githubId })
+      .returning();
+  },
+
   async upsertFromGithub(
     tx: Tx,
     identity: GithubIdentity,

@@ -1,7 +1,9 @@
 import { z } from 'zod';
 import { ROLES, type UserRow } from '../../../../schema';
+import { IdParams } from '../../middleware/validate';
 
-export const UserIdParams = z.object({ id: z.coerce.number().int().positive() });
+/** `:id` of a user: the integer identity column's range, so 2^31 and beyond are a 400. */
+export const UserIdParams = IdParams;
 export const RoleChangeBody = z.object({ role: z.enum(ROLES) }).strict();
 
 /** The public shape of a user; the one mapping every route uses. */
@@ -15,4 +17,8 @@ export function toUserView(u: UserRow) {
     createdAt: u.createdAt.toISOString(),
   };
 }
+
 export type UserView = ReturnType<typeof toUserView>;
+export type MeView = Omit<UserView, 'createdAt'>;
+export type UsersListView = { users: UserView[] };
+export type RoleChangeInput = z.infer<typeof RoleChangeBody>;
