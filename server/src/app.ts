@@ -17,6 +17,8 @@ import { createAuthModule } from './modules/auth/auth-module';
 import { REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
 import { createCalculateModule } from './modules/calculate/calculate-router';
 import { createHealthModule } from './modules/health/health-router';
+import { createReactionsModule } from './modules/reactions/reactions-router';
+import { createReleasesModule } from './modules/releases/releases-router';
 import { createUsersModule } from './modules/users/users-router';
 import { thermoJsonReplacer } from './thermo';
 
@@ -61,6 +63,8 @@ export function createApp(deps: AppDeps): Express {
     verifyToken: deps.verifyToken ?? noTokensYet,
   });
   const calculate = createCalculateModule();
+  const releases = createReleasesModule({ db: database.db });
+  const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
 
   // Before any session: health answers while the database is down, and static files and the
   // SPA page never carry (or renew) a session cookie, so shared caches may keep them.
@@ -78,6 +82,8 @@ export function createApp(deps: AppDeps): Express {
     ),
     users.router,
     calculate.router,
+    releases.router,
+    reactions.router,
   );
   app.use(['/api', '/auth'], notFoundHandler);
   app.use(errorHandler);

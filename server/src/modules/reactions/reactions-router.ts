@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import express, { Router, type Request, type Response } from 'express';
 import { AppError } from '../../lib/app-error';
 import { validate } from '../../middleware/validate';
+import { IMMUTABLE_CACHE, LATEST_CACHE } from '../releases/release-http-cache';
 import { BatchBody, ReactionBody, ReactionQuery, type ReactionInput } from './reactions-schemas';
 import {
   createReactionsService,
@@ -14,11 +15,6 @@ export const REACTION_BODY_LIMIT = '10kb';
 const REACTION_URL_LIMIT = 10 * 1024;
 /** Up to 10,000 reactions of ordinary length. */
 export const BATCH_BODY_LIMIT = '2mb';
-
-/** A published release never changes: its answers may be kept as long as caches like. */
-const IMMUTABLE = 'public, max-age=31536000, immutable';
-/** `latest` moves when a new release is published: keep its answers briefly. */
-const MOVING = 'public, max-age=300';
 
 /** Public, anonymous (rate-limited with the rest of /api/v1) reaction-enthalpy routes. */
 export function reactionsRouter(service: ReactionsService): Router {
@@ -67,7 +63,7 @@ async function answerOne(
   const snap = await service.release(input.release);
   const { release: _label, ...request } = input;
   res.setHeader('ETag', etag(snap.version, request));
-  res.setHeader('Cache-Control', input.release === 'latest' ? MOVING : IMMUTABLE);
+  res.setHeader('Cache-Control', input.release === 'latest' ? LATEST_CACHE : IMMUTABLE_CACHE);
   if (req.fresh) {
     res.status(304).end();
     return;
