@@ -3,6 +3,47 @@ const eslint = require('@eslint/js');
 const tseslint = require('typescript-eslint');
 const angular = require('angular-eslint');
 
+// The engine's layers, lowest first: a folder may import its own and lower folders only, and
+// nothing in the engine reaches outside server/src/thermo (packages such as fraction.js are fine).
+// testing/ and bench/ sit on top; specs may use testing/.
+const THERMO_LAYERS = [
+  'errors',
+  'rational',
+  'formula',
+  'equation',
+  'balance',
+  'enthalpy',
+  'temperature',
+];
+const thermoLayerRules = THERMO_LAYERS.flatMap((layer, i) => {
+  const higher = [...THERMO_LAYERS.slice(i + 1), 'testing', 'bench'];
+  const rule = (forbidden) => ({
+    'no-restricted-imports': [
+      'error',
+      {
+        patterns: [
+          {
+            regex: `^\\.\\./(${forbidden.join('|')})(/|$)`,
+            message: `thermo/${layer} is a lower layer of the engine: it must not import from ${forbidden.join(', ')}.`,
+          },
+          {
+            regex: '^\\.\\.(/index)?$|^\\.\\./\\.\\.(/|$)',
+            message:
+              'The engine imports nothing outside server/src/thermo, and layers never import its index.',
+          },
+        ],
+      },
+    ],
+  });
+  return [
+    { files: [`server/src/thermo/${layer}/**/*.ts`], rules: rule(higher) },
+    {
+      files: [`server/src/thermo/${layer}/**/*.spec.ts`],
+      rules: rule(higher.filter((h) => h !== 'testing')),
+    },
+  ];
+});
+
 module.exports = tseslint.config(
   { ignores: ['dist/', '.angular/', 'node_modules/', 'coverage/', 'artifacts/', 'schema/migrations/'] },
   {
@@ -37,6 +78,39 @@ module.exports = tseslint.config(
       '@typescript-eslint/no-explicit-any': 'off',
       // Test hosts are throwaway components.
       '@angular-eslint/prefer-on-push-component-change-detection': 'off',
+    },
+  },
+  ...thermoLayerRules,
+  {
+    files: ['server/src/thermo/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^\\.\\.(/|$)',
+              message: 'The engine imports nothing outside server/src/thermo.',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['server/src/thermo/{testing,bench}/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^\\.\\./\\.\\.(/|$)',
+              message: 'The engine imports nothing outside server/src/thermo.',
+            },
+          ],
+        },
+      ],
     },
   },
   {

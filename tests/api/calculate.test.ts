@@ -56,15 +56,15 @@ describe('public calculation routes', () => {
       expect(res.body).toMatchObject({
         balanced: true,
         imbalance: {},
-        charge: 0,
+        charge: '0',
         suggestion: null,
       });
       expect(res.body.normalized).toBe('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)');
       expect(res.body.species).toEqual([
-        expect.objectContaining({ formula: 'CH4', phase: 'g', coefficient: -1 }),
-        expect.objectContaining({ formula: 'O2', phase: 'g', coefficient: -2 }),
-        expect.objectContaining({ formula: 'CO2', phase: 'g', coefficient: 1 }),
-        expect.objectContaining({ formula: 'H2O', phase: 'l', coefficient: 2 }),
+        expect.objectContaining({ formula: 'CH4', phase: 'g', coefficient: '-1' }),
+        expect.objectContaining({ formula: 'O2', phase: 'g', coefficient: '-2' }),
+        expect.objectContaining({ formula: 'CO2', phase: 'g', coefficient: '1' }),
+        expect.objectContaining({ formula: 'H2O', phase: 'l', coefficient: '2' }),
       ]);
     });
 
@@ -75,7 +75,8 @@ describe('public calculation routes', () => {
         .expect(200);
       expect(res.body.balanced).toBe(false);
       // products minus reactants: C 1−3, H 2−8, O (2+1)−2
-      expect(res.body.imbalance).toEqual({ C: -2, H: -6, O: 1 });
+      // Exact numbers travel as text in lowest terms (the one wire format).
+      expect(res.body.imbalance).toEqual({ C: '-2', H: '-6', O: '1' });
       expect(res.body.suggestion).toBe('C3H8(g) + 5 O2(g) -> 3 CO2(g) + 4 H2O(l)');
     });
 
@@ -84,13 +85,13 @@ describe('public calculation routes', () => {
         .post('/api/v1/equations/parse')
         .send({ equation: 'Na+(aq) + Cl-(aq) -> NaCl(cr)' })
         .expect(200);
-      expect(res.body).toMatchObject({ balanced: true, charge: 0 });
+      expect(res.body).toMatchObject({ balanced: true, charge: '0' });
       const off = await request(t.app)
         .post('/api/v1/equations/parse')
         .send({ equation: 'Fe^3+(aq) -> Fe^2+(aq)' })
         .expect(200);
       expect(off.body.balanced).toBe(false);
-      expect(off.body.charge).toBe(-1);
+      expect(off.body.charge).toBe('-1');
     });
 
     it('cannot judge the balance of a registry-key term and says which key', async () => {
@@ -106,7 +107,7 @@ describe('public calculation routes', () => {
       expect(res.body.species[0]).toMatchObject({
         formula: '[2-methylpropane]',
         phase: 'g',
-        coefficient: -1,
+        coefficient: '-1',
       });
     });
 
@@ -159,29 +160,29 @@ describe('public calculation routes', () => {
       const res = await request(t.app).post('/api/v1/hess/solve').send(clf3).expect(200);
       expect(res.body.unit).toBe('kJ/mol');
       expect(res.body.deltaH).toBeCloseTo(-104.5, 9);
-      expect(res.body.multipliers).toEqual([-0.5, 0.5, -1]);
+      expect(res.body.multipliers).toEqual(['-1/2', '1/2', '-1']);
       expect(res.body.unused).toEqual([]);
       expect(res.body.uncertainty).toBeNull();
       expect(res.body.steps).toEqual([
         expect.objectContaining({
           index: 0,
-          multiplier: -0.5,
+          multiplier: '-1/2',
           flipped: true,
-          scale: 0.5,
+          scale: '1/2',
           deltaH: expect.closeTo(24.7, 9),
         }),
         expect.objectContaining({
           index: 1,
-          multiplier: 0.5,
+          multiplier: '1/2',
           flipped: false,
-          scale: 0.5,
+          scale: '1/2',
           deltaH: expect.closeTo(107.0, 9),
         }),
         expect.objectContaining({
           index: 2,
-          multiplier: -1,
+          multiplier: '-1',
           flipped: true,
-          scale: 1,
+          scale: '1',
           deltaH: expect.closeTo(-236.2, 9),
         }),
       ]);

@@ -1,4 +1,6 @@
 import request from 'supertest';
+import { THERMO_ERROR_STATUS } from '../../server/src/middleware/error-handler';
+import { THERMO_ERROR_CODES } from '../../server/src/thermo';
 import { createTestApp, signIn, type TestApp } from '../support/test-app';
 
 describe('error responses', () => {
@@ -53,6 +55,14 @@ describe('error responses', () => {
       .expect(400);
     expectErrorShape(res.body, 'validation_error');
     expect(res.body.error.message).toContain('role');
+  });
+
+  it('maps every engine error code to a client-error status', () => {
+    for (const code of THERMO_ERROR_CODES) {
+      expect(THERMO_ERROR_STATUS[code]).toBeGreaterThanOrEqual(400);
+      expect(THERMO_ERROR_STATUS[code]).toBeLessThan(500);
+    }
+    expect(Object.keys(THERMO_ERROR_STATUS).sort()).toEqual([...THERMO_ERROR_CODES].sort());
   });
 
   it('sets security headers, including a Content-Security-Policy', async () => {

@@ -1,7 +1,23 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from '../lib/app-error';
-import { ThermoError } from '../thermo';
+import { ThermoError, type ThermoErrorCode } from '../thermo';
+
+/**
+ * HTTP status of every engine error code. Exhaustive by type: a new code does not compile until
+ * it is mapped here. 400: the request cannot be read as chemistry (syntax, an element symbol that
+ * does not exist, a value the engine refuses); 422: it reads fine but cannot be computed.
+ */
+export const THERMO_ERROR_STATUS: Record<ThermoErrorCode, number> = {
+  parse_error: 400,
+  unknown_element: 400,
+  invalid_input: 400,
+  unbalanced: 422,
+  no_combination: 422,
+  not_unique: 422,
+  out_of_range: 422,
+  missing_data: 422,
+};
 
 interface BodyParserError {
   type?: string;
@@ -32,10 +48,7 @@ function toResponse(err: unknown): { status: number; body: Record<string, unknow
   }
   if (err instanceof ThermoError) {
     return {
-      status:
-        err.code === 'parse_error' || err.code === 'unknown_element' || err.code === 'invalid_input'
-          ? 400
-          : 422,
+      status: THERMO_ERROR_STATUS[err.code],
       body: { code: err.code, message: err.message, ...err.details },
     };
   }

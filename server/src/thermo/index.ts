@@ -2,25 +2,34 @@
  * Thalpos thermochemistry engine: formulas, equations, balance, Hess's law, Kirchhoff's law,
  * heating values. Pure computation (no I/O); data arrives through lookup callbacks. Energies are
  * J/mol unless a name says otherwise; stoichiometry is exact (fraction.js).
+ *
+ * Layers, lowest first (each folder imports only its own and lower ones; ESLint enforces it):
+ * errors → rational → formula → equation → balance → enthalpy → temperature. The rest of the
+ * server imports the engine from this file only.
  */
-export { ThermoError, isThermoError, type ThermoErrorCode } from './errors';
+export {
+  ThermoError,
+  isThermoError,
+  THERMO_ERROR_CODES,
+  type ThermoErrorCode,
+} from './errors/thermo-error';
 
 export {
   ATOMIC_WEIGHTS,
   ELEMENT_SYMBOLS,
   isElementSymbol,
   type AtomicWeight,
-} from './atomic-weights';
-export { parseFormula, type ParsedFormula } from './formula-parser';
-export { hillFormula, hillOrder } from './hill-formula';
-export { molarMass } from './molar-mass';
+} from './formula/atomic-weights';
+export { parseFormula, type ParsedFormula } from './formula/formula-parser';
+export { hillFormula, hillOrder } from './formula/hill-formula';
+export { molarMass } from './formula/molar-mass';
 export {
   referenceStates,
   isReferenceState,
   matchReferenceState,
   type ReferenceState,
   type ReferenceMatch,
-} from './reference-states';
+} from './enthalpy/reference-states';
 
 export {
   PHASES,
@@ -31,20 +40,21 @@ export {
   type Term,
   type Equation,
   type Side,
-} from './equation-types';
-export { parseEquation, parseTerm, isRegistryKey } from './equation-parser';
-export { printEquation, printTerm } from './equation-printer';
+} from './equation/equation-types';
+export { parseEquation, parseTerm, isRegistryKey } from './equation/equation-parser';
+export { printEquation, printTerm } from './equation/equation-printer';
 export {
   buildEquation,
   reverseEquation,
   scaleEquation,
   stoichiometry,
   speciesPhaseId,
-} from './equation-builder';
+} from './equation/equation-builder';
 
-export { checkBalance, assertBalanced, type BalanceReport } from './balance';
-export { thermoJsonReplacer } from './json-replacer';
-export { autoBalance } from './auto-balance';
+export { checkBalance, assertBalanced, type BalanceReport } from './balance/balance';
+export { thermoJsonReplacer } from './rational/json-replacer';
+export { fractionText } from './rational/rational';
+export { autoBalance } from './balance/auto-balance';
 
 export {
   tableLookup,
@@ -52,26 +62,26 @@ export {
   type FormationValue,
   type FormationLookup,
   type UncertaintyBasis,
-} from './formation-data';
-export type { CombinedBasis } from './uncertainty';
+} from './enthalpy/formation-data';
+export type { CombinedBasis } from './enthalpy/uncertainty';
 export {
   reactionEnthalpy,
   type ReactionEnthalpy,
   type TermContribution,
   type BalanceOptions,
-} from './reaction-enthalpy';
+} from './enthalpy/reaction-enthalpy';
 export {
   solveHess,
   type HessStep,
   type HessStepUse,
   type HessResult,
   type HessOptions,
-} from './hess';
+} from './enthalpy/hess';
 export {
   deriveFormationEnthalpy,
   type DerivedFormation,
   type DeriveOptions,
-} from './derive-formation';
+} from './enthalpy/derive-formation';
 
 export {
   convertEnergy,
@@ -84,13 +94,13 @@ export {
   STANDARD_TEMPERATURE,
   type EnergyUnit,
   type SpecificEnergyUnit,
-} from './units';
+} from './enthalpy/units';
 export {
   heatingValues,
   combustionEquation,
   type HeatingValues,
   type HeatingValue,
-} from './heating-values';
+} from './enthalpy/heating-values';
 
 export {
   heatCapacity,
@@ -104,7 +114,7 @@ export {
   type ShomateModel,
   type ShomateRange,
   type TemperatureRange,
-} from './heat-capacity';
+} from './temperature/heat-capacity';
 export {
   reactionEnthalpyAtT,
   type PhaseTransition,
@@ -113,4 +123,4 @@ export {
   type TemperatureLookup,
   type TermAtTemperature,
   type ReactionEnthalpyAtT,
-} from './kirchhoff';
+} from './temperature/kirchhoff';

@@ -8,6 +8,15 @@ import { z } from 'zod';
 export const ENERGY_UNITS = ['kJ/mol', 'kcal/mol', 'J/mol'] as const;
 export const EnergyUnit = z.enum(ENERGY_UNITS);
 
+/**
+ * The one wire format for exact numbers (coefficients, multipliers, imbalances, charges): a JSON
+ * string holding the rational in lowest terms, sign first, "/denominator" only when it is not 1:
+ * "2", "-1/2", "13/2". Measured quantities (ΔH, uncertainties) are JSON numbers.
+ */
+export const ExactNumber = z
+  .string()
+  .regex(/^-?\d+(\/\d+)?$/, 'is not an exact number such as "-1/2"');
+
 const equationText = z
   .string()
   .trim()
@@ -26,8 +35,8 @@ export const ParsedSpecies = z.object({
   phase: phase.nullable(),
   /** Crystal modification such as "graphite"; null when none is written. */
   modification: z.string().nullable(),
-  /** Negative for reactants. */
-  coefficient: z.number(),
+  /** Exact; negative for reactants. */
+  coefficient: ExactNumber,
 });
 
 export const ParseAnswer = z.object({
@@ -35,9 +44,9 @@ export const ParseAnswer = z.object({
   /** null when a registry-key term hides its composition. */
   balanced: z.boolean().nullable(),
   /** Products minus reactants, per element; empty when balanced. */
-  imbalance: z.record(z.string(), z.number()),
+  imbalance: z.record(z.string(), ExactNumber),
   /** Products' charge minus reactants'. */
-  charge: z.number(),
+  charge: ExactNumber,
   /** Registry keys whose composition is unknown to the engine. */
   unknownComposition: z.array(z.string()),
   /** A balanced form of the equation, when it is unbalanced and one exists. */
@@ -70,10 +79,10 @@ export const HessStepAnswer = z.object({
   /** 0-based position of the step in the request. */
   index: z.number().int().nonnegative(),
   /** mᵢ in Σ mᵢ·stepᵢ = target (negative: used reversed). */
-  multiplier: z.number(),
+  multiplier: ExactNumber,
   flipped: z.boolean(),
   /** |mᵢ|. */
-  scale: z.number(),
+  scale: ExactNumber,
   /** mᵢ·ΔHᵢ in the answer's unit. */
   deltaH: z.number(),
   /** The step's equation as written, normalized. */
@@ -88,7 +97,7 @@ export const HessAnswer = z.object({
   uncertainty: z.number().nullable(),
   unit: EnergyUnit,
   /** One multiplier per requested step, in order (0 for unused steps). */
-  multipliers: z.array(z.number()),
+  multipliers: z.array(ExactNumber),
   /** 0-based indices of steps not used. */
   unused: z.array(z.number().int().nonnegative()),
   /** Other multiplier sets reach the target too (all with the same ΔH). */

@@ -1,6 +1,7 @@
 import {
   autoBalance,
   checkBalance,
+  fractionText,
   fromJoulesPerMole,
   parseEquation,
   printEquation,
@@ -10,7 +11,7 @@ import {
   type Equation,
   type Term,
 } from '../../thermo';
-import type { HessInput } from './calculate-schemas';
+import type { HessAnswer, HessInput, ParseAnswer } from './calculate-schemas';
 
 /** Parses one equation, naming the request field in any error so the client can point at it. */
 function parseField(text: string, field: string): Equation {
@@ -31,11 +32,11 @@ const speciesEntry = (t: Term, sign: 1 | -1) => ({
   formula: speciesLabel(t),
   phase: t.phase,
   modification: t.modification,
-  coefficient: sign * t.coefficient.valueOf(),
+  coefficient: fractionText(sign === 1 ? t.coefficient : t.coefficient.neg()),
 });
 
 /** What the equation editor shows while someone types: normal form, balance, a suggestion. */
-export function describeEquation(text: string) {
+export function describeEquation(text: string): ParseAnswer {
   const eq = parseField(text, 'equation');
   const report = checkBalance(eq);
   return {
@@ -43,10 +44,10 @@ export function describeEquation(text: string) {
     // null when a registry-key term hides its composition: the balance cannot be judged.
     balanced: report.balanced,
     imbalance: Object.fromEntries(
-      Object.entries(report.imbalance).map(([el, f]) => [el, f.valueOf()]),
+      Object.entries(report.imbalance).map(([el, f]) => [el, fractionText(f)]),
     ),
-    charge: report.charge.valueOf(),
-    unknownComposition: report.unknownComposition,
+    charge: fractionText(report.charge),
+    unknownComposition: [...report.unknownComposition],
     suggestion: report.balanced === false ? suggestBalance(eq) : null,
     species: [
       ...eq.reactants.map((t) => speciesEntry(t, -1)),
@@ -65,7 +66,7 @@ function suggestBalance(eq: Equation): string | null {
 }
 
 /** Hess combination in the caller's unit; the engine works in J/mol and the sum is linear. */
-export function combineSteps(input: HessInput) {
+export function combineSteps(input: HessInput): HessAnswer {
   const { unit } = input;
   const target = parseField(input.target, 'target');
   const steps = input.steps.map((s, i) => ({
@@ -80,14 +81,14 @@ export function combineSteps(input: HessInput) {
     deltaH: out(result.deltaH),
     uncertainty: result.uncertainty === null ? null : out(result.uncertainty),
     unit,
-    multipliers: result.multipliers.map((m) => m.valueOf()),
+    multipliers: result.multipliers.map(fractionText),
     unused: result.unused,
     alternativeSolutions: result.alternativeSolutions,
     steps: result.steps.map((s) => ({
       index: s.index,
-      multiplier: s.multiplier.valueOf(),
+      multiplier: fractionText(s.multiplier),
       flipped: s.flipped,
-      scale: s.scale.valueOf(),
+      scale: fractionText(s.scale),
       deltaH: out(s.deltaH),
       equation: printEquation(steps[s.index].equation),
     })),

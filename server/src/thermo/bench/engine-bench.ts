@@ -3,9 +3,9 @@
  * repeated on one core. Prints reactions per second; asserts nothing.
  *   npx tsx server/src/thermo/bench/engine-bench.ts      (npm run bench:engine)
  */
-import { checkBalance } from '../balance';
-import { parseEquation } from '../equation-parser';
-import { reactionEnthalpy } from '../reaction-enthalpy';
+import { checkBalance } from '../balance/balance';
+import { parseEquation } from '../equation/equation-parser';
+import { reactionEnthalpy } from '../enthalpy/reaction-enthalpy';
 import { benchEquations, benchLookup } from './equation-set';
 
 const SET_SIZE = 1000;

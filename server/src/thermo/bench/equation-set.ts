@@ -1,11 +1,11 @@
-import { autoBalance } from '../auto-balance';
-import { netEquation, makeTerm, scaleEquation } from '../equation-builder';
-import { parseTerm } from '../equation-parser';
-import type { Equation, Term } from '../equation-types';
-import { printEquation } from '../equation-printer';
-import { combustionEquation } from '../heating-values';
-import { frac } from '../rational';
-import type { FormationValue } from '../formation-data';
+import { autoBalance } from '../balance/auto-balance';
+import { netEquation, makeTerm, scaleEquation } from '../equation/equation-builder';
+import { parseTerm } from '../equation/equation-parser';
+import type { Equation, Term } from '../equation/equation-types';
+import { printEquation } from '../equation/equation-printer';
+import { combustionEquation } from '../enthalpy/heating-values';
+import { frac } from '../rational/rational';
+import type { FormationValue } from '../enthalpy/formation-data';
 
 /**
  * A fixed, seeded set of equations for the engine benchmark, with an in-memory table of

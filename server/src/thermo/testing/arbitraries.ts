@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { ELEMENT_SYMBOLS } from '../atomic-weights';
+import { ELEMENT_SYMBOLS } from '../formula/atomic-weights';
 
 /** fast-check generators of formula and equation text for the engine's property tests. */
 

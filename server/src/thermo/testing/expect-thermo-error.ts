@@ -1,4 +1,4 @@
-import { ThermoError } from '../errors';
+import { ThermoError } from '../errors/thermo-error';
 
 /** Runs `run` and returns the ThermoError it throws; anything else (or nothing) fails the test. */
 export function thermoFailure(run: () => unknown): ThermoError {

@@ -1,4 +1,4 @@
-import type { Nasa7Model } from '../heat-capacity';
+import type { Nasa7Model } from '../temperature/heat-capacity';
 
 /**
  * NASA 7-coefficient data from GRI-Mech 3.0 (Smith et al., 1999), as transcribed in
