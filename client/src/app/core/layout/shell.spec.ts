@@ -75,10 +75,10 @@ describe('Shell', () => {
     backend.expectOne('/api/v1/me').flush(admin);
   });
 
-  it('offers an anonymous visitor Home and Calculate, and a full-page sign-in link', async () => {
+  it('offers an anonymous visitor Home, Browse and Calculate, and a full-page sign-in link', async () => {
     await signIn(null);
 
-    expect(navLabels()).toEqual(['Home', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
     const signInLink = Array.from(element.querySelectorAll('a')).find((a) =>
       a.textContent?.includes('Sign in'),
     );
@@ -89,7 +89,7 @@ describe('Shell', () => {
   it('shows an admin the Admin link, their name and their role chip', async () => {
     await signIn(admin);
 
-    expect(navLabels()).toEqual(['Home', 'Calculate', 'Admin']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Admin']);
     expect(element.querySelector('nav a[href="/admin/users"]')).not.toBeNull();
     expect(element.querySelector('.user-name')?.textContent).toBe('Amara Okafor');
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('admin');
@@ -99,7 +99,7 @@ describe('Shell', () => {
   it('hides the Admin link from other roles', async () => {
     await signIn(editor);
 
-    expect(navLabels()).toEqual(['Home', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('editor');
   });
 
@@ -121,6 +121,6 @@ describe('Shell', () => {
     expect(navigate).toHaveBeenCalledWith('/');
     expect(element.textContent).toContain('Sign in');
     expect(element.querySelector('.user-name')).toBeNull();
-    expect(navLabels()).toEqual(['Home', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
   });
 });

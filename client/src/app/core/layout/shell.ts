@@ -1,10 +1,13 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
 import { MatChip, MatChipSet } from '@angular/material/chips';
 import { MatIcon } from '@angular/material/icon';
 import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTabLink, MatTabNav } from '@angular/material/tabs';
 import { MatToolbar } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterLinkActive } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive } from '@angular/router';
+import { filter, map, startWith } from 'rxjs';
 
 import { readableMessage } from '../api-error';
 import { Session, SIGN_IN_URL } from '../session';
@@ -12,7 +15,17 @@ import { Session, SIGN_IN_URL } from '../session';
 /** Top bar (product name, navigation, who is signed in) around the routed screen. */
 @Component({
   selector: 'thalpos-shell',
-  imports: [MatToolbar, MatButton, MatIcon, MatChipSet, MatChip, RouterLink, RouterLinkActive],
+  imports: [
+    MatToolbar,
+    MatButton,
+    MatIcon,
+    MatChipSet,
+    MatChip,
+    MatTabNav,
+    MatTabLink,
+    RouterLink,
+    RouterLinkActive,
+  ],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -24,6 +37,22 @@ export class Shell {
 
   protected readonly signInUrl = SIGN_IN_URL;
   protected readonly signingOut = signal(false);
+
+  protected readonly calculateItems = [
+    { path: '/calculate/reaction', label: 'Reaction enthalpy' },
+    { path: '/calculate/hess', label: 'Hess combination' },
+  ] as const;
+
+  private readonly url = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      startWith(null),
+      map(() => this.router.url),
+    ),
+    { initialValue: this.router.url },
+  );
+  /** The calculation screens get a second row of links, one per screen. */
+  protected readonly inCalculate = computed(() => this.url().startsWith('/calculate'));
 
   protected async signOut(): Promise<void> {
     this.signingOut.set(true);

@@ -8,4 +8,9 @@ export const CALCULATE_ROUTES: Routes = [
     title: 'Hess combination · Thalpos',
     loadComponent: () => import('./hess-page/hess-page').then((m) => m.HessPage),
   },
+  {
+    path: 'reaction',
+    title: 'Reaction enthalpy · Thalpos',
+    loadComponent: () => import('./reaction-page/reaction-page').then((m) => m.ReactionPage),
+  },
 ];
