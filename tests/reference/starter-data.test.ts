@@ -146,7 +146,6 @@ const CP_298: Record<string, number> = {
   'nitric-oxide(g)': 29.845,
   'sulfur-dioxide(g)': 39.842,
   'argon(g)': (5 / 2) * 8.314462618,
-  'acetylene(g)': 44.036,
   'nitrous-oxide(g)': 38.617,
   'formaldehyde(g)': 35.387,
   // Chen, Wilhoit and Zwolinski, J. Phys. Chem. Ref. Data 6, 105 (1977), from memory.
@@ -160,7 +159,6 @@ const CP_298: Record<string, number> = {
  */
 const OTHER_BASIS: Record<string, { kJPerMol: string; why: string }> = {
   'nitric-oxide(g)': { kJPerMol: '91.27', why: 'a later spectroscopic ΔfH°(NO); the row is 90.25' },
-  'acetylene(g)': { kJPerMol: '228.2', why: 'the value some evaluations give; the row is 227.4' },
 };
 
 /** H°(T) − H°(298.15 K), kJ/mol, check-values.md (Chase 1998 / Borgnakke–Sonntag A.9). */
