@@ -8,16 +8,21 @@ import { MatInputHarness } from '@angular/material/input/testing';
 
 import { errorInterceptor } from '../../../core/error-interceptor';
 import { EQUATION_CHECK_DEBOUNCE_MS } from '../equation-check';
-import type { ParsedEquation } from '../models/equation';
+import type { ParseAnswer as ParsedEquation } from '@contracts/calculate/calculate-schemas';
 import { EquationField } from './equation-field';
 
 @Component({
   imports: [EquationField],
-  template: `<thalpos-equation-field [control]="equation" label="Step 2 equation" />`,
+  template: `<thalpos-equation-field
+    [control]="equation"
+    label="Step 2 equation"
+    [requirePhases]="requirePhases"
+  />`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 class Host {
   readonly equation = new FormControl('', { nonNullable: true, validators: Validators.required });
+  requirePhases = false;
 }
 
 const pause = (ms = EQUATION_CHECK_DEBOUNCE_MS + 50) =>
@@ -27,7 +32,8 @@ const parsed = (overrides: Partial<ParsedEquation>): ParsedEquation => ({
   normalized: 'CO(g) + 1/2 O2(g) -> CO2(g)',
   balanced: true,
   imbalance: {},
-  charge: 0,
+  charge: '0',
+  unknownComposition: [],
   suggestion: null,
   species: [],
   ...overrides,
@@ -77,7 +83,7 @@ describe('EquationField', () => {
     await typeAndAnswer(' CO(g) + 1/2 O2(g) -> CO2(g) ', parsed({}));
 
     expect(hint()?.getAttribute('data-check')).toBe('balanced');
-    expect(hintText()).toContain('Balanced ✓ · read as CO(g) + 1/2 O2(g) -> CO2(g)');
+    expect(hintText()).toContain('Balanced ✓ · read as CO(g) + 1/2 O₂(g) → CO₂(g)');
   });
 
   it('names each element that does not balance, and the suggestion', async () => {
@@ -86,7 +92,7 @@ describe('EquationField', () => {
       parsed({
         normalized: 'CO(g) + O2(g) -> CO2(g)',
         balanced: false,
-        imbalance: { C: 0, O: -1 },
+        imbalance: { C: '0', O: '-1' },
         suggestion: 'CO(g) + 1/2 O2(g) -> CO2(g)',
       }),
     );
@@ -100,7 +106,12 @@ describe('EquationField', () => {
   it('mentions a charge that does not balance', async () => {
     await typeAndAnswer(
       'Fe^3+(aq) -> Fe^2+(aq)',
-      parsed({ normalized: 'Fe^3+(aq) -> Fe^2+(aq)', balanced: false, imbalance: {}, charge: -1 }),
+      parsed({
+        normalized: 'Fe^3+(aq) -> Fe^2+(aq)',
+        balanced: false,
+        imbalance: {},
+        charge: '-1',
+      }),
     );
     expect(hintText()).toContain('Not balanced: charge -1');
   });
@@ -111,25 +122,93 @@ describe('EquationField', () => {
       parsed({ normalized: '[2-methylpropane](g) -> [butane](g)', balanced: null }),
     );
     expect(hint()?.getAttribute('data-check')).toBe('uncounted');
-    expect(hintText()).toContain(
-      'Read as [2-methylpropane](g) -> [butane](g); balance not checked',
-    );
+    expect(hintText()).toContain('Read as [2-methylpropane](g) → [butane](g); balance not checked');
   });
 
   it('shows where the server could not read the equation', async () => {
     const input = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatInputHarness);
     await input.setValue('CH4 + O2(g) -> CO2(g)');
     await pause();
-    backend
-      .expectOne('/api/v1/equations/parse')
-      .flush(
-        { error: { code: 'parse_error', message: "Missing phase after 'CH4'", position: 3 } },
-        { status: 400, statusText: 'Bad Request' },
-      );
+    backend.expectOne('/api/v1/equations/parse').flush(
+      {
+        error: {
+          code: 'parse_error',
+          message: "expected '+' or an arrow at position 4",
+          position: 4,
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
 
     expect(hint()?.getAttribute('data-check')).toBe('invalid');
-    expect(hintText()).toContain("Parse error at position 3: Missing phase after 'CH4'");
+    // The position is stated once, 1-based, and the character is marked in the text.
+    expect(hintText()).toContain("Cannot read this at character 5: expected '+' or an arrow");
+    expect(hintText()?.match(/position|character/g)).toHaveLength(1);
+    expect(hint()?.querySelector('mark')?.textContent).toBe('+');
+    expect(hint()?.querySelector('.fault')?.textContent).toBe('CH4 + O2(g) -> CO2(g)');
+  });
+
+  it('shows an unknown element in the field, not as a network failure', async () => {
+    const input = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatInputHarness);
+    await input.setValue('Xy2(g) -> Xy2(l)');
+    await pause();
+    backend.expectOne('/api/v1/equations/parse').flush(
+      {
+        error: {
+          code: 'unknown_element',
+          message: "unknown element symbol 'Xy' at position 0",
+          position: 0,
+          symbol: 'Xy',
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    expect(hint()?.getAttribute('data-check')).toBe('invalid');
+    expect(hintText()).toContain("unknown element symbol 'Xy'");
+    expect(hintText()).not.toContain('Could not check');
+    expect(hint()?.textContent).not.toContain('cloud_off');
+  });
+
+  it('says phases are lower case without asking the server', async () => {
+    const input = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatInputHarness);
+    await input.setValue('H2O(L) -> H2O(g)');
+    await pause();
+    await fixture.whenStable();
+    backend.expectNone('/api/v1/equations/parse');
+    expect(hintText()).toContain('phases are written in lower case: (l), not (L)');
+  });
+
+  it('names the terms without a phase when phases are required', async () => {
+    fixture.componentInstance.requirePhases = true;
+    fixture.changeDetectorRef.markForCheck();
+    await typeAndAnswer(
+      'H2(g) + 1/2 O2(g) -> H2O',
+      parsed({
+        normalized: 'H2(g) + 1/2 O2(g) -> H2O',
+        species: [
+          { formula: 'H2', phase: 'g', modification: null, coefficient: '-1' },
+          { formula: 'O2', phase: 'g', modification: null, coefficient: '-1/2' },
+          { formula: 'H2O', phase: null, modification: null, coefficient: '1' },
+        ],
+      }),
+    );
+    expect(hint()?.getAttribute('data-check')).toBe('invalid');
+    expect(hintText()).toContain('Every term needs its phase on this screen: H2O has none.');
+    expect(hintText()).not.toContain('Balanced');
+  });
+
+  it('announces its hint only while the field is being edited', async () => {
+    expect(hint()?.getAttribute('aria-live')).toBeNull();
+    const textarea = (fixture.nativeElement as HTMLElement).querySelector('textarea')!;
+    textarea.dispatchEvent(new Event('focus'));
+    await fixture.whenStable();
+    expect(hint()?.getAttribute('aria-live')).toBe('polite');
+    textarea.dispatchEvent(new Event('blur'));
+    await fixture.whenStable();
+    // (An empty required field shows its error instead of the hint once left.)
+    expect(hint()?.getAttribute('aria-live') ?? null).toBeNull();
   });
 
   it('cancels a check still running when the text changes', async () => {
@@ -147,7 +226,7 @@ describe('EquationField', () => {
     expect(fresh.request.body).toEqual({ equation: 'H2(g) + 1/2 O2(g) -> H2O(g)' });
     fresh.flush(parsed({ normalized: 'H2(g) + 1/2 O2(g) -> H2O(g)' }));
     await fixture.whenStable();
-    expect(hintText()).toContain('read as H2(g) + 1/2 O2(g) -> H2O(g)');
+    expect(hintText()).toContain('read as H₂(g) + 1/2 O₂(g) → H₂O(g)');
   });
 
   it('does not ask while the user is still typing', async () => {
