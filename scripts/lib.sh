@@ -9,11 +9,28 @@ die() { printf '\033[1;31m[thalpos]\033[0m %s\n' "$*" >&2; exit 1; }
 
 as_root() { if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi; }
 
+# Runs apt-get, waiting (up to APT_LOCK_WAIT seconds, default 600) while another apt or dpkg
+# run holds Debian's package lock instead of failing at once.
+apt_get() {
+  local waited=0 limit="${APT_LOCK_WAIT:-600}" err; err="$(mktemp)"
+  while :; do
+    if as_root env DEBIAN_FRONTEND=noninteractive apt-get -o DPkg::Lock::Timeout="$limit" "$@" 2>"$err"; then
+      rm -f "$err"; return 0
+    fi
+    if grep -qiE 'could not get lock|unable to acquire|lock-frontend|is another process using it' "$err" && [ "$waited" -lt "$limit" ]; then
+      [ "$waited" = 0 ] && log "another apt run holds the package lock; waiting for it to finish"
+      sleep 5; waited=$((waited + 5))
+      continue
+    fi
+    cat "$err" >&2; rm -f "$err"; return 1
+  done
+}
+
 apt_install() {
   command -v apt-get >/dev/null || die "apt-get not found: install $* by hand"
   log "installing $* from Debian (apt-get)"
-  if [ -z "${THALPOS_APT_UPDATED:-}" ]; then as_root apt-get update -qq; THALPOS_APT_UPDATED=1; fi
-  as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >/dev/null
+  if [ -z "${THALPOS_APT_UPDATED:-}" ]; then apt_get update -qq || die "apt-get update failed"; THALPOS_APT_UPDATED=1; fi
+  apt_get install -y -qq --no-install-recommends "$@" >/dev/null || die "apt-get install $* failed"
 }
 
 ensure_node_modules() {
@@ -104,7 +121,38 @@ ensure_database() {
   fi
 }
 
+# The schema owner (postgres) runs migrations; the application connects as APP_ROLE, which owns
+# nothing and holds only the rights it uses: read and write rows, use sequences. No DDL, no
+# CREATE on the schema, no TRUNCATE; audit_log refuses UPDATE and DELETE by trigger as well.
+APP_ROLE=thalpos_app
+
 database_url() { printf 'postgres://postgres:%s@127.0.0.1:%s/%s' "$PGPASSWORD" "$CLUSTER_PORT" "$1"; }
+app_database_url() { printf 'postgres://%s:%s@127.0.0.1:%s/%s' "$APP_ROLE" "$APP_PASSWORD" "$CLUSTER_PORT" "$1"; }
+
+# Creates the application role in the running cluster (once); sets APP_PASSWORD.
+ensure_app_role() {
+  APP_PASSWORD_FILE="$(dirname "$CLUSTER_DIR")/$(basename "$CLUSTER_DIR").app-password"
+  [ -s "$APP_PASSWORD_FILE" ] || (umask 077; node -e "console.log(require('crypto').randomBytes(18).toString('hex'))" > "$APP_PASSWORD_FILE")
+  APP_PASSWORD="$(cat "$APP_PASSWORD_FILE")"
+  if [ "$(psql_admin -tAc "select 1 from pg_roles where rolname = '$APP_ROLE'")" != 1 ]; then
+    psql_admin -c "create role $APP_ROLE login nosuperuser nocreatedb nocreaterole noinherit password '$APP_PASSWORD'"
+  else
+    psql_admin -c "alter role $APP_ROLE login password '$APP_PASSWORD'"
+  fi
+}
+
+# Grants the application role its rights in database $1: on what exists, and (default
+# privileges) on every table and sequence that later migrations create as postgres.
+grant_app_role() {
+  psql_admin -d "$1" \
+    -c "grant connect on database \"$1\" to $APP_ROLE" \
+    -c "revoke create on schema public from public" \
+    -c "grant usage on schema public to $APP_ROLE" \
+    -c "grant select, insert, update, delete on all tables in schema public to $APP_ROLE" \
+    -c "grant usage, select on all sequences in schema public to $APP_ROLE" \
+    -c "alter default privileges for role postgres in schema public grant select, insert, update, delete on tables to $APP_ROLE" \
+    -c "alter default privileges for role postgres in schema public grant usage, select on sequences to $APP_ROLE"
+}
 
 # Rebuilds the client only when its sources or config changed since the last build.
 ensure_client_build() {

@@ -10,7 +10,11 @@ if [ -z "${DATABASE_URL:-}" ]; then
   cluster_start dev "${THALPOS_PG_PORT:-54329}"
   [ "$CLUSTER_STARTED" = 1 ] && trap cluster_stop EXIT
   ensure_database thalpos
-  export DATABASE_URL; DATABASE_URL="$(database_url thalpos)"
+  ensure_app_role
+  grant_app_role thalpos
+  # Migrations run as the schema owner; the app itself connects with the least-privileged role.
+  export MIGRATION_DATABASE_URL; MIGRATION_DATABASE_URL="$(database_url thalpos)"
+  export DATABASE_URL; DATABASE_URL="$(app_database_url thalpos)"
 fi
 ensure_client_build
 

@@ -17,10 +17,15 @@ ensure_chromium
 # A throw-away cluster of its own on a free port: never touches the dev database or port 3000,
 # and two runs at once (e.g. in two checkouts' terminals) do not share one.
 cluster_start "test-$$" "$(free_port)" -c fsync=off -c synchronous_commit=off -c full_page_writes=off
-cluster_discard() { cluster_stop; rm -rf "$CLUSTER_DIR" "$PGPASSWORD_FILE"; }
+cluster_discard() { cluster_stop; rm -rf "$CLUSTER_DIR" "$PGPASSWORD_FILE" "${APP_PASSWORD_FILE:-}"; }
 trap cluster_discard EXIT
 psql_admin -c 'drop database if exists thalpos_template' -c 'create database thalpos_template'
+ensure_app_role
+# Before the migrations, so every table they create is granted to the app role; clones copy it.
+grant_app_role thalpos_template
 export TEMPLATE_DATABASE_URL; TEMPLATE_DATABASE_URL="$(database_url thalpos_template)"
+# Each test database is reached as the application role (tests/support/test-db.ts).
+export TEST_APP_DATABASE_URL; TEST_APP_DATABASE_URL="$(app_database_url thalpos_template)"
 DATABASE_URL="$TEMPLATE_DATABASE_URL" DEMO_DATA=1 npx tsx server/src/db/migrate-cli.ts
 export TEST_ADMIN_DATABASE_URL; TEST_ADMIN_DATABASE_URL="$(database_url postgres)"
 

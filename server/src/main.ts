@@ -1,24 +1,36 @@
 // Starts Thalpos: migrations, demo data, the fake GitHub when needed, then the HTTP server.
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
-import { loadConfig } from './config/env';
+import { loadConfig, type AppConfig } from './config/env';
 import { connectDatabase } from './db/client';
 import { runMigrations } from './db/migrate';
 import { seedDemoData } from './db/seed-demo';
-import { startFakeGithub, type FakeGithub } from './fakes/github-fake';
+import type { FakeGithub } from './fakes/github-fake';
 import { createLogger } from './lib/logger';
 
 async function main(): Promise<void> {
   const config = loadConfig();
   const logger = createLogger(config.logLevel);
+  logSecuritySettings(config, logger);
+  // Migrations need the schema owner; the app itself connects as a role that owns nothing.
+  const owner = connectDatabase(config.migrationDatabaseUrl, logger);
+  try {
+    await runMigrations(owner.db);
+  } finally {
+    await owner.pool.end();
+  }
   const database = connectDatabase(config.databaseUrl, logger);
-  await runMigrations(database.db);
   if (config.demoData) await seedDemoData(database.db);
 
   let fake: FakeGithub | null = null;
   if (!config.github && !config.fakeGithubUrl) {
-    fake = await startFakeGithub(config.fakeGithubPort, config.host);
-    logger.info({ url: fake.url }, 'local fake GitHub sign-in provider started');
+    // Development code, loaded only when asked for: the production bundle does not contain it.
+    const { startFakeGithub } = await import('./fakes/github-fake');
+    fake = await startFakeGithub({
+      port: config.fakeGithubPort,
+      callbackUrls: ownCallbackUrls(config),
+    });
+    logger.info({ url: fake.url }, 'local fake GitHub sign-in provider started (loopback only)');
   }
 
   const app = createApp({ config, database, logger, fakeGithubUrl: fake?.url });
@@ -43,6 +55,30 @@ async function main(): Promise<void> {
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));
+}
+
+/**
+ * The callback URLs this server can be reached at, the only ones the local stand-in accepts
+ * (on a random port, PORT=0, any loopback origin with the callback path).
+ */
+function ownCallbackUrls(config: AppConfig): string[] | undefined {
+  if (config.port === 0) return undefined;
+  const hosts = ['127.0.0.1', 'localhost', '[::1]'].includes(config.host)
+    ? ['127.0.0.1', 'localhost']
+    : [config.host];
+  return hosts.map((h) => `http://${h}:${config.port}/auth/github/callback`);
+}
+
+/** Says plainly at start-up what the proxy setting implies, so a TLS deployment cannot miss it. */
+function logSecuritySettings(config: AppConfig, logger: ReturnType<typeof createLogger>): void {
+  if (config.trustProxy) {
+    logger.info('TRUST_PROXY=1: client address and https from the proxy; Secure cookies, HSTS');
+  } else if (config.env === 'production') {
+    logger.warn(
+      'TRUST_PROXY is not set: cookies are not Secure, no HSTS, and behind a proxy every caller ' +
+        'shares one rate-limit bucket. Set TRUST_PROXY=1 when a TLS proxy serves this site.',
+    );
+  }
 }
 
 main().catch((err: unknown) => {

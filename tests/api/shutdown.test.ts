@@ -14,7 +14,13 @@ describe('server process', () => {
   it('applies migrations at start-up, serves, and exits 0 on SIGTERM', async () => {
     const child = spawn(path.join(PROJECT_ROOT, 'node_modules/.bin/tsx'), ['server/src/main.ts'], {
       cwd: PROJECT_ROOT,
-      env: { ...process.env, PORT: '0', DATABASE_URL: db.url, LOG_LEVEL: 'silent' },
+      env: {
+        ...process.env,
+        PORT: '0',
+        DATABASE_URL: db.url,
+        MIGRATION_DATABASE_URL: db.ownerUrl,
+        LOG_LEVEL: 'silent',
+      },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     const exited = new Promise<number | null>((resolve) =>

@@ -1,3 +1,4 @@
+import { Client } from 'pg';
 import request from 'supertest';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
@@ -165,5 +166,90 @@ describe('users and roles', () => {
           .expect(409)
       ).body.error.code,
     ).toBe('last_admin');
+  });
+
+  it('audits a refused role change as its own action, without the change it asked for', async () => {
+    const { agent, xsrf } = await as('demo-editor');
+    const editor = await idOf('demo-editor');
+    const target = await idOf('demo-reader');
+    const refusals = async () =>
+      (
+        await t.db.pool.query(
+          `select actor_id, entity_type, entity_id, before, after from audit_log
+            where action = 'user.role_change_refused' and actor_id = $1 order by id`,
+          [editor],
+        )
+      ).rows;
+    const before = (await refusals()).length;
+    await agent
+      .patch(`/api/v1/users/${target}`)
+      .set('X-XSRF-TOKEN', xsrf)
+      .send({ role: 'admin' })
+      .expect(403);
+    const rows = await refusals();
+    expect(rows).toHaveLength(before + 1);
+    expect(rows.at(-1)).toEqual({
+      actor_id: editor,
+      entity_type: 'user',
+      entity_id: String(target),
+      before: null,
+      after: null,
+    });
+    expect(
+      (await t.db.pool.query('select role from users where id = $1', [target])).rows[0].role,
+    ).toBe('reader');
+  });
+
+  it("re-checks the acting admin's role under lock: a demotion committed meanwhile wins", async () => {
+    // Two admins on a database of their own: one is demoted (in a transaction this test holds
+    // open) while their request to promote a reader is on its way.
+    const race = await createTestApp();
+    const other = new Client({ connectionString: race.db.url });
+    try {
+      const id = async (login: string) =>
+        (await race.db.pool.query('select id from users where login = $1', [login])).rows[0].id;
+      const [actor, reader] = [await id('demo-admin'), await id('demo-reader')];
+      await race.db.pool.query(`update users set role = 'admin' where login = 'demo-editor'`);
+      const agent = request.agent(race.app);
+      const xsrf = await signIn(agent, 'demo-admin');
+
+      await other.connect();
+      await other.query('begin');
+      await other.query('select id from users where id = $1 for update', [actor]);
+      await other.query(`update users set role = 'editor' where id = $1`, [actor]);
+
+      // The request passes the route's role check (the demotion is not committed yet) and then
+      // waits on the row lock inside its own transaction.
+      const pending = agent
+        .patch(`/api/v1/users/${reader}`)
+        .set('X-XSRF-TOKEN', xsrf)
+        .send({ role: 'admin' })
+        .then((r) => r);
+      for (;;) {
+        const waiting = await other.query(
+          `select count(*)::int as n from pg_stat_activity
+            where datname = current_database() and wait_event_type = 'Lock'`,
+        );
+        if (waiting.rows[0].n > 0) break;
+        await new Promise((r) => setImmediate(r));
+      }
+      await other.query('commit');
+
+      const res = await pending;
+      expect(res.status).toBe(403);
+      expect(res.body.error.code).toBe('role_revoked');
+      expect(
+        (await race.db.pool.query('select role from users where id = $1', [reader])).rows[0].role,
+      ).toBe('reader');
+      const refused = await race.db.pool.query(
+        `select count(*)::int as n from audit_log
+          where action = 'user.role_change_refused' and actor_id = $1 and entity_id = $2`,
+        [actor, String(reader)],
+      );
+      expect(refused.rows[0].n).toBe(1);
+    } finally {
+      await other.end();
+      await race.close();
+    }
   });
 });

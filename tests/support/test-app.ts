@@ -1,6 +1,6 @@
 import type { Express } from 'express';
 import request from 'supertest';
-import { createApp } from '../../server/src/app';
+import { createApp, type AppDeps } from '../../server/src/app';
 import { loadConfig, type AppConfig } from '../../server/src/config/env';
 import { createLogger } from '../../server/src/lib/logger';
 import { createTestDatabase, type TestDatabase } from './test-db';
@@ -13,7 +13,10 @@ export interface TestApp {
 }
 
 /** The real application on a database of its own, signed in through the fake GitHub. */
-export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Record<string, string> = {},
+  deps: Pick<AppDeps, 'adapters' | 'verifyToken'> = {},
+): Promise<TestApp> {
   const db = await createTestDatabase();
   const config = loadConfig({
     ...process.env,
@@ -23,7 +26,7 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     API_RATE_LIMIT: '10000',
     ...overrides,
   });
-  const app = createApp({ config, database: db, logger: createLogger('silent') });
+  const app = createApp({ config, database: db, logger: createLogger('silent'), ...deps });
   return { app, db, config, close: () => db.drop() };
 }
 

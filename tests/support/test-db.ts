@@ -5,9 +5,14 @@ import { connectDatabase, type DbHandle } from '../../server/src/db/client';
 /**
  * Each test file gets its own database, cloned from the migrated and seeded template that the
  * test runner prepares (scripts/test.sh), so files can run in parallel without sharing rows.
+ * The handle connects as the application's own role (least privilege, as in production);
+ * `ownerUrl` reaches the same database as the schema owner, for migrations.
  */
 export interface TestDatabase extends DbHandle {
+  /** As the application role (`thalpos_app`). */
   url: string;
+  /** As the schema owner (`postgres`). */
+  ownerUrl: string;
   drop(): Promise<void>;
 }
 
@@ -27,16 +32,22 @@ async function admin<T>(fn: (c: Client) => Promise<T>): Promise<T> {
   }
 }
 
+const withDatabase = (base: string, name: string) => {
+  const url = new URL(base);
+  url.pathname = `/${name}`;
+  return url.toString();
+};
+
 export async function createTestDatabase(): Promise<TestDatabase> {
   const template = new URL(env('TEMPLATE_DATABASE_URL'));
   const name = `thalpos_t_${randomBytes(5).toString('hex')}`;
   await admin((c) => c.query(`create database "${name}" template "${template.pathname.slice(1)}"`));
-  const url = new URL(template);
-  url.pathname = `/${name}`;
-  const handle = connectDatabase(url.toString());
+  const url = withDatabase(env('TEST_APP_DATABASE_URL'), name);
+  const handle = connectDatabase(url);
   return {
     ...handle,
-    url: url.toString(),
+    url,
+    ownerUrl: withDatabase(template.toString(), name),
     async drop() {
       await handle.pool.end();
       await admin((c) => c.query(`drop database if exists "${name}" with (force)`));

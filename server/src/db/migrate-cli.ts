@@ -6,7 +6,7 @@ import { seedDemoData } from './seed-demo';
 
 async function main(): Promise<void> {
   const config = loadConfig();
-  const { pool, db } = connectDatabase(config.databaseUrl);
+  const { pool, db } = connectDatabase(config.migrationDatabaseUrl);
   try {
     await runMigrations(db);
     if (config.demoData) await seedDemoData(db);

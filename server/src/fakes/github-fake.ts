@@ -7,15 +7,52 @@ import { DEMO_ACCOUNTS, findDemoAccount } from './demo-accounts';
  * A stand-in for GitHub's OAuth web flow on loopback, for development, demos and tests. It speaks
  * the authorize → access_token → /user exchange that passport-github2 performs, built on
  * oauth2-mock-server, and adds an account chooser page plus GitHub's `login` authorize parameter.
+ * It listens on 127.0.0.1 only, answers no cross-origin requests, and sends codes only to the
+ * app's own callback URL. A development dependency: the production bundle leaves it out.
  */
 export interface FakeGithub {
   url: string;
   stop(): Promise<void>;
 }
 
-const AUTHORIZE = '/login/oauth/authorize';
+export interface FakeGithubOptions {
+  port?: number;
+  /**
+   * The exact callback URLs that may receive a code. Without them (the test runner's shared
+   * instance, whose apps listen on random ports) any loopback origin with the app's callback
+   * path is accepted, and nothing else.
+   */
+  callbackUrls?: readonly string[];
+}
 
-export async function startFakeGithub(port = 0, host = '127.0.0.1'): Promise<FakeGithub> {
+const AUTHORIZE = '/login/oauth/authorize';
+export const CALLBACK_PATH = '/auth/github/callback';
+const LOOPBACK = new Set(['127.0.0.1', 'localhost', '[::1]']);
+
+function callbackAllowed(value: unknown, callbackUrls?: readonly string[]): boolean {
+  if (typeof value !== 'string') return false;
+  if (callbackUrls) return callbackUrls.includes(value);
+  try {
+    const url = new URL(value);
+    return (
+      url.protocol === 'http:' &&
+      LOOPBACK.has(url.hostname) &&
+      url.pathname === CALLBACK_PATH &&
+      !url.search &&
+      !url.hash &&
+      !url.username &&
+      !url.password
+    );
+  } catch {
+    return false;
+  }
+}
+
+export async function startFakeGithub({
+  port = 0,
+  callbackUrls,
+}: FakeGithubOptions = {}): Promise<FakeGithub> {
+  const host = '127.0.0.1';
   // ESM-only package: loaded lazily so CommonJS code that never starts the fake need not load it.
   const { OAuth2Issuer, OAuth2Service } = await import('oauth2-mock-server');
   const issuer = new OAuth2Issuer();
@@ -62,6 +99,22 @@ export async function startFakeGithub(port = 0, host = '127.0.0.1'): Promise<Fak
 
   const app = express();
   app.disable('x-powered-by');
+  // oauth2-mock-server answers every origin (CORS *): a browser page elsewhere must not be
+  // able to read its answers, so cross-origin headers are stripped and preflights refused.
+  app.use((req, res, next) => {
+    if (req.method === 'OPTIONS') {
+      res.status(405).end();
+      return;
+    }
+    const setHeader = res.setHeader.bind(res);
+    res.setHeader = (name, value) =>
+      /^access-control-/i.test(name) ? res : setHeader(name, value);
+    next();
+  });
+  app.use(AUTHORIZE, (req, res, next) => {
+    if (callbackAllowed(req.query.redirect_uri, callbackUrls)) return next();
+    res.status(400).type('text').send('redirect_uri is not the application callback URL');
+  });
   app.get(AUTHORIZE, (req, res, next) => {
     const login = typeof req.query.login === 'string' ? req.query.login : '';
     if (login && findDemoAccount(login)) return next();
