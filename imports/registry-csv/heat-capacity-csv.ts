@@ -82,7 +82,7 @@ function nasaModel(
       ok = report(r.line, 'nasa7 needs a6 and a7 (c6, c7)', r.c.c6 === null ? 'c6' : 'c7');
     if (r.c.c8 !== null) ok = report(r.line, 'nasa7 has seven coefficients: leave c8 empty', 'c8');
   }
-  if (low.c.t_max_k !== high.c.t_min_k)
+  if (Number(low.c.t_max_k) !== Number(high.c.t_min_k))
     ok = report(
       high.line,
       `the ranges must meet: ${low.c.t_max_k} K ≠ ${high.c.t_min_k} K`,
@@ -113,7 +113,7 @@ function shomateModel(
         r.c.c6 === null ? 'c6' : 'c8',
       );
     const previous = rows[i - 1];
-    if (previous !== undefined && previous.c.t_max_k !== r.c.t_min_k)
+    if (previous !== undefined && Number(previous.c.t_max_k) !== Number(r.c.t_min_k))
       ok = report(
         r.line,
         `ranges must be contiguous: ${previous.c.t_max_k} K then ${r.c.t_min_k} K`,

@@ -42,14 +42,34 @@ const item = z
   })
   .passthrough();
 
-/** Line of the item's `"id"` in the text, so errors point near the item. */
-function lineOf(text: string, id: unknown, index: number): number {
-  if (typeof id === 'string') {
-    const at = text.indexOf(`"id": ${JSON.stringify(id)}`);
-    const at2 = at >= 0 ? at : text.indexOf(`"id":${JSON.stringify(id)}`);
-    if (at2 >= 0) return text.slice(0, at2).split('\n').length;
+/** Line where each element of the top-level array starts (the text is valid JSON by now). */
+function itemLines(text: string): number[] {
+  const lines: number[] = [];
+  let line = 1;
+  let depth = 0;
+  let inString = false;
+  let expectItem = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text[i] as string;
+    if (c === '\n') line++;
+    if (inString) {
+      if (c === '\\') i++;
+      else if (c === '"') inString = false;
+      continue;
+    }
+    if (/\s/.test(c)) continue;
+    if (depth === 1 && expectItem) {
+      lines.push(line);
+      expectItem = false;
+    }
+    if (c === '"') inString = true;
+    else if (c === '[' || c === '{') {
+      depth++;
+      if (depth === 1) expectItem = true;
+    } else if (c === ']' || c === '}') depth--;
+    else if (c === ',' && depth === 1) expectItem = true;
   }
-  return index + 2; // fallback: one item per line after the opening bracket
+  return lines;
 }
 
 export function parseSourcesJson(input: TextInput): ParseResult<CslItem> {
@@ -74,8 +94,9 @@ export function parseSourcesJson(input: TextInput): ParseResult<CslItem> {
   const errors: RowError[] = [];
   const ids = new Map<string, number>();
   const dois = new Map<string, number>();
+  const lines = itemLines(text);
   data.forEach((raw: unknown, index) => {
-    const line = lineOf(text, (raw as { id?: unknown } | null)?.id, index);
+    const line = lines[index] ?? 1;
     const result = item.safeParse(raw);
     if (!result.success) {
       for (const issue of result.error.issues)

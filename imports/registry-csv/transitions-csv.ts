@@ -70,6 +70,12 @@ export function parseTransitionsCsv(
     const to = speciesPhaseKey(c.species, c.to_phase, c.to_modification);
     if (from === to) report('a transition needs two different phases', 'to_phase');
     const energy = energyFields(c, report);
+    // On heating through an equilibrium transition ΔtrsH = T·ΔtrsS > 0.
+    if (energy.valueJPerMol.startsWith('-') || energy.valueJPerMol === '0')
+      report(
+        'ΔtrsH in the heating direction is positive (fusion cr → l, vaporization l → g)',
+        'value',
+      );
     const id = `${from} → ${to}`;
     const earlier = lines.get(id);
     if (earlier !== undefined) report(`${id} already on line ${earlier}`, 'species');

@@ -7,7 +7,9 @@ import {
   parseDataset,
   parseFormationCsv,
   parseHeatCapacityCsv,
+  parseSourcesJson,
   parseSpeciesCsv,
+  parseTransitionsCsv,
   toJoulesPerMoleText,
 } from '../../imports/registry-csv';
 
@@ -154,5 +156,58 @@ describe('registry-csv reader', () => {
       ['heat-capacity.csv', 2, 'species'],
       ['transitions.csv', 2, 'source'],
     ]);
+  });
+
+  it('reports CSV syntax and cell-count problems by line', () => {
+    expect(parseSpeciesCsv(`${SPECIES_HEAD}\nwater,"Water,H2O,0,,,,,,`).errors).toEqual([
+      expect.objectContaining({
+        file: 'species.csv',
+        message: expect.stringMatching(/^CSV syntax/),
+      }),
+    ]);
+    const { rows, errors } = parseSpeciesCsv(`${SPECIES_HEAD}\nwater,Water,H2O\n${WATER}`);
+    expect(rows).toHaveLength(1);
+    expect(errors).toEqual([
+      { file: 'species.csv', line: 2, message: 'expected 10 cells, found 3' },
+    ]);
+  });
+
+  it('refuses transitions written against the heating direction or between one phase', () => {
+    const row = (from: string, to: string, value: string) =>
+      `water,${from},,${to},,373.15,${value},kJ/mol,,,evaluated,101325,src,no,`;
+    const { rows, errors } = parseTransitionsCsv(
+      [TRANSITION_HEAD, row('l', 'g', '40.656'), row('g', 'l', '-40.656'), row('l', 'l', '1')].join(
+        '\n',
+      ),
+    );
+    expect(rows).toMatchObject([{ fromPhase: 'l', toPhase: 'g', valueJPerMol: '40656' }]);
+    expect(errors.map((e) => [e.line, e.column])).toEqual([
+      [3, 'value'],
+      [4, 'to_phase'],
+    ]);
+  });
+
+  it('checks CSL-JSON sources: ids, bare DOIs, duplicates', () => {
+    const { rows, errors } = parseSourcesJson(
+      JSON.stringify(
+        [
+          { id: 'kestrel-2026', type: 'report', title: 'Kestrel data sheet', DOI: '10.5555/k.1' },
+          { id: 'kestrel-2026', type: 'report', title: 'Again' },
+          { id: 'other', type: 'report', title: 'Other', DOI: 'https://doi.org/10.5555/k.1' },
+          { id: 'third', type: 'report', title: 'Third', DOI: '10.5555/K.1' },
+          { id: 'untitled', type: 'report' },
+        ],
+        null,
+        2,
+      ),
+    );
+    expect(rows.map((r) => r.id)).toEqual(['kestrel-2026']);
+    expect(errors.map((e) => [e.line, e.column])).toEqual([
+      [8, 'id'],
+      [13, 'DOI'],
+      [19, 'DOI'],
+      [25, 'title'],
+    ]);
+    expect(parseSourcesJson('{').errors[0]?.message).toMatch(/^JSON/);
   });
 });
