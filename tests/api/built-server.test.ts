@@ -30,8 +30,13 @@ describe('built server', () => {
     await db.drop();
   });
 
-  /** Starts dist/…/main.js in production mode, checks it serves, stops it; the modules it loaded. */
-  async function runBuilt(extraEnv: Record<string, string>): Promise<string[]> {
+  /**
+   * Starts dist/…/main.js in production mode, checks it serves, stops it; returns the modules it
+   * loaded and what it printed.
+   */
+  async function runBuilt(
+    extraEnv: Record<string, string>,
+  ): Promise<{ loaded: string[]; output: string }> {
     const loadedFile = path.join(scratch, `loaded-${randomBytes(4).toString('hex')}.json`);
     const env: NodeJS.ProcessEnv = {
       PATH: process.env.PATH,
@@ -41,7 +46,7 @@ describe('built server', () => {
       DATABASE_URL: db.url,
       MIGRATION_DATABASE_URL: db.ownerUrl,
       SESSION_SECRET: 'a-long-enough-secret-for-this-test',
-      LOG_LEVEL: 'silent',
+      LOG_LEVEL: 'warn',
       LOADED_MODULES_FILE: loadedFile,
       ...extraEnv,
     };
@@ -69,7 +74,8 @@ describe('built server', () => {
     expect((await fetch(`${url}/api/health`)).status).toBe(200);
     child.kill('SIGTERM');
     expect(await exited).toBe(0);
-    return JSON.parse(fs.readFileSync(loadedFile, 'utf8')) as string[];
+    const loaded = JSON.parse(fs.readFileSync(loadedFile, 'utf8')) as string[];
+    return { loaded, output };
   }
 
   const fakeModules = (loaded: string[]) =>
@@ -84,14 +90,19 @@ describe('built server', () => {
     );
   });
 
-  it('loads no fake code without FAKE_SIGN_IN', async () => {
-    const loaded = await runBuilt({ GITHUB_CLIENT_ID: 'id', GITHUB_CLIENT_SECRET: 'secret' });
+  it('loads no fake code without FAKE_SIGN_IN, and warns that TRUST_PROXY is not set', async () => {
+    const { loaded, output } = await runBuilt({
+      GITHUB_CLIENT_ID: 'id',
+      GITHUB_CLIENT_SECRET: 'secret',
+    });
     expect(loaded.some((m) => m.endsWith('main.js'))).toBe(true);
     expect(fakeModules(loaded)).toEqual([]);
+    expect(output).toContain('TRUST_PROXY is not set: cookies are not Secure');
   }, 60_000);
 
   it('loads the stand-in when FAKE_SIGN_IN=1 asks for a demo server', async () => {
-    const loaded = await runBuilt({ FAKE_SIGN_IN: '1' });
+    const { loaded, output } = await runBuilt({ FAKE_SIGN_IN: '1', TRUST_PROXY: '1' });
     expect(fakeModules(loaded)).toEqual([path.join(outdir, 'github-fake.js')]);
+    expect(output).not.toContain('TRUST_PROXY is not set');
   }, 60_000);
 });
