@@ -82,7 +82,7 @@ describe('Shell', () => {
     const signInLink = Array.from(element.querySelectorAll('a')).find((a) =>
       a.textContent?.includes('Sign in'),
     );
-    expect(signInLink?.getAttribute('href')).toBe('/auth/github');
+    expect(signInLink?.getAttribute('href')).toBe('/auth/github?returnTo=%2F');
     expect(element.textContent).not.toContain('Sign out');
   });
 
@@ -122,5 +122,28 @@ describe('Shell', () => {
     expect(element.textContent).toContain('Sign in');
     expect(element.querySelector('.user-name')).toBeNull();
     expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
+  });
+
+  it('sends sign-in back to the current page with its query', async () => {
+    await TestBed.inject(Router).navigateByUrl('/?target=H2(g)');
+    await signIn(null);
+    const signInLink = Array.from(element.querySelectorAll('a')).find((a) =>
+      a.textContent?.includes('Sign in'),
+    );
+    expect(signInLink?.getAttribute('href')).toBe('/auth/github?returnTo=%2F%3Ftarget%3DH2(g)');
+  });
+
+  it('does not show a busy server (429 on /api/v1/me) as signed out', async () => {
+    const known = TestBed.inject(Session).refresh();
+    backend
+      .expectOne('/api/v1/me')
+      .flush(
+        { error: { code: 'rate_limited', message: 'Too many requests' } },
+        { status: 429, statusText: 'Too Many Requests', headers: { 'Retry-After': '10' } },
+      );
+    await known;
+    await fixture.whenStable();
+    expect(element.textContent).not.toContain('Sign in');
+    expect(element.textContent).toContain('Account: check again');
   });
 });

@@ -10,7 +10,7 @@ import { NavigationEnd, Router, RouterLink, RouterLinkActive } from '@angular/ro
 import { filter, map, startWith } from 'rxjs';
 
 import { readableMessage } from '../api-error';
-import { Session, SIGN_IN_URL } from '../session';
+import { Session, signInHref } from '../session';
 
 /** Top bar (product name, navigation, who is signed in) around the routed screen. */
 @Component({
@@ -35,7 +35,6 @@ export class Shell {
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
 
-  protected readonly signInUrl = SIGN_IN_URL;
   protected readonly signingOut = signal(false);
 
   protected readonly calculateItems = [
@@ -51,6 +50,8 @@ export class Shell {
     ),
     { initialValue: this.router.url },
   );
+  /** Sign-in comes back to this page with its query (a calculation kept in the URL survives). */
+  protected readonly signInUrl = computed(() => signInHref(this.url()));
   /** The calculation screens get a second row of links, one per screen. */
   protected readonly inCalculate = computed(() => this.url().startsWith('/calculate'));
 

@@ -21,13 +21,19 @@ export const SAFETY_CAUTION =
       align-items: flex-start;
       padding: 12px 16px;
       border-radius: var(--mat-sys-corner-medium);
-      border-left: 4px solid var(--mat-sys-tertiary);
-      background: var(--mat-sys-tertiary-container);
-      color: var(--mat-sys-on-tertiary-container);
+      border-left: 4px solid var(--mat-sys-primary);
+      background: var(--mat-sys-surface-container-high);
+      color: var(--mat-sys-on-surface);
       font: var(--mat-sys-body-medium);
+    }
+    mat-icon {
+      /* Never squashed by a long text beside it. */
+      flex: none;
+      color: var(--mat-sys-primary);
     }
     p {
       margin: 0;
+      min-width: 0;
     }
   `,
   host: { role: 'note', 'aria-label': 'Safety caution' },

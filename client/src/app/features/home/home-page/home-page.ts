@@ -3,13 +3,20 @@ import { MatButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
-interface Duty {
+interface Screen {
   icon: string;
-  role: string;
+  title: string;
+  path: string;
   does: string;
 }
 
-/** What Thalpos is for and who does what in it. */
+interface Duty {
+  icon: string;
+  name: string;
+  does: string;
+}
+
+/** What Thalpos is for, the screens that can be opened today, and the roles. */
 @Component({
   selector: 'thalpos-home-page',
   imports: [MatButton, MatIcon, RouterLink],
@@ -18,36 +25,63 @@ interface Duty {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class HomePage {
-  protected readonly duties: readonly Duty[] = [
+  /** Only screens that exist: each links to its route. */
+  protected readonly screens: readonly Screen[] = [
     {
-      icon: 'menu_book',
-      role: 'Reader',
-      does: 'Browses and searches the published values, and calculates reaction enthalpies. No account needed.',
+      icon: 'table_view',
+      title: 'Browse',
+      path: '/browse',
+      does: 'Search the species of a published release and read their formation enthalpies with phase, uncertainty and source.',
     },
     {
-      icon: 'terminal',
-      role: 'Engineer',
-      does: 'A reader with an API token: queries the reaction-enthalpy API from scripts, spreadsheets and process models, at a higher rate limit.',
+      icon: 'science',
+      title: 'Reaction enthalpy',
+      path: '/calculate/reaction',
+      does: 'ΔrH° of a balanced equation from a chosen release, term by term, with the source of every value.',
+    },
+    {
+      icon: 'account_tree',
+      title: 'Hess combination',
+      path: '/calculate/hess',
+      does: 'Combine reaction steps you measured or looked up into a target reaction and sum their ΔH, with the uncertainty.',
+    },
+  ];
+
+  /** The four roles the registry knows, in order of what they may do. */
+  protected readonly roles: readonly Duty[] = [
+    {
+      icon: 'menu_book',
+      name: 'Reader',
+      does: 'Reads published values and calculates. Anyone is a reader, with or without an account.',
     },
     {
       icon: 'edit_note',
-      role: 'Curator',
-      does: 'Proposes new species, values and phase records, each with its source; can withdraw their own proposals and upload in bulk.',
+      name: 'Curator',
+      does: 'Proposes new species, values and phase records, each with its source.',
     },
     {
       icon: 'fact_check',
-      role: 'Editor',
-      does: 'Reviews proposals (approve, reject or ask for changes, never their own), then assembles and publishes releases.',
+      name: 'Editor',
+      does: 'Reviews proposals (never their own) and publishes releases.',
     },
     {
       icon: 'admin_panel_settings',
-      role: 'Admin',
-      does: 'Manages users and their roles. Every change of role is recorded in the audit log.',
+      name: 'Admin',
+      does: 'Manages users and their roles; every change of role is recorded in the audit log.',
+    },
+  ];
+
+  /** Not roles: ways readers use the registry from their own programs. */
+  protected readonly uses: readonly Duty[] = [
+    {
+      icon: 'terminal',
+      name: 'Engineers',
+      does: 'Readers with an API token, who query reaction enthalpies from scripts, spreadsheets and process models at a higher rate limit.',
     },
     {
       icon: 'sync_alt',
-      role: 'Integrator',
-      does: 'Pulls versioned exports into process simulators and property packages, checks them against their checksums and reads the diff between releases.',
+      name: 'Integrators',
+      does: 'Readers with an API token, who pull whole releases into simulators and property packages.',
     },
   ];
 }
