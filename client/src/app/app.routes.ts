@@ -25,5 +25,9 @@ export const routes: Routes = [
     loadComponent: () =>
       import('./core/not-allowed/not-allowed-page').then((m) => m.NotAllowedPage),
   },
-  { path: '**', redirectTo: '' },
+  {
+    path: '**',
+    title: 'Page not found · Thalpos',
+    loadComponent: () => import('./core/not-found/not-found-page').then((m) => m.NotFoundPage),
+  },
 ];
