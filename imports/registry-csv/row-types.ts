@@ -103,7 +103,7 @@ export interface TransitionRow extends Provenance, EnergyFields {
   readonly temperatureK: string;
 }
 
-/** One temperature range as printed: bounds and coefficients (c1… in order, empty ones dropped). */
+/** One temperature range as printed: bounds and coefficients c1…c8 in order (null where empty). */
 export interface CoefficientRange {
   readonly line: number;
   readonly tMinK: string;
