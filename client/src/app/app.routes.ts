@@ -10,6 +10,14 @@ export const routes: Routes = [
     loadComponent: () => import('./features/home/home-page/home-page').then((m) => m.HomePage),
   },
   {
+    path: 'browse',
+    loadChildren: () => import('./features/browse/browse.routes').then((m) => m.BROWSE_ROUTES),
+  },
+  {
+    path: 'species',
+    loadChildren: () => import('./features/species/species.routes').then((m) => m.SPECIES_ROUTES),
+  },
+  {
     path: 'calculate',
     loadChildren: () =>
       import('./features/calculate/calculate.routes').then((m) => m.CALCULATE_ROUTES),
