@@ -11,6 +11,7 @@ import {
   enthalpyChange,
   enthalpyIncrement,
   heatCapacity,
+  isReferenceState,
   nasaEnthalpy,
   type Nasa7Model,
 } from '../../server/src/thermo';
@@ -212,6 +213,17 @@ describe('starter dataset', () => {
     expect(missing).toEqual([]);
     const sources = new Set(data.sources.map((s) => s.id));
     for (const row of data.formation) expect(sources.has(row.source)).toBe(true);
+  });
+
+  it('has the reference state of every element any species contains, at exactly 0', () => {
+    const byKey = new Map(data.species.map((s) => [s.key, s]));
+    const references = data.formation.filter((r) =>
+      isReferenceState(byKey.get(r.species)!.formula, r.phase, r.modification),
+    );
+    expect(references.every((r) => r.valueJPerMol === '0')).toBe(true);
+    const covered = new Set(references.flatMap((r) => Object.keys(byKey.get(r.species)!.elements)));
+    const needed = new Set(data.species.flatMap((s) => Object.keys(s.elements)));
+    expect([...needed].filter((e) => !covered.has(e))).toEqual([]);
   });
 
   it('keeps isomers apart: same Hill formula, different keys and identifiers', () => {
