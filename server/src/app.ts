@@ -8,7 +8,7 @@ import type { AppConfig } from './config/env';
 import type { DbHandle } from './db/client';
 import type { Logger } from './lib/logger';
 import { noTokensYet, type TokenVerifier } from './middleware/bearer-auth';
-import { noStore } from './middleware/cache-control';
+import { noCookieOnCacheable, noStore } from './middleware/cache-control';
 import { errorHandler } from './middleware/error-handler';
 import { notFoundHandler } from './middleware/not-found';
 import { perMinuteLimit } from './middleware/rate-limit';
@@ -48,6 +48,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(requestLogger(logger));
   app.use(securityHeaders(config.trustProxy));
   app.use(['/api', '/auth'], noStore);
+  app.use(noCookieOnCacheable);
 
   // Modules: each owns its routes, body parser and size limit.
   const health = createHealthModule({ pool: database.pool });

@@ -1,7 +1,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import express from 'express';
 import request from 'supertest';
+import { systemClock } from '../../server/src/adapters/clock';
+import { noCookieOnCacheable } from '../../server/src/middleware/cache-control';
+import { sessionMiddleware } from '../../server/src/middleware/session';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 // Regression tests for the findings of a security review: each one failed before its fix.
@@ -118,6 +122,26 @@ describe('security hardening', () => {
           expect(res.headers['cache-control']).toMatch(/no-store|private/);
         }
       }
+    });
+
+    it('strips the session cookie from a route that marks its answer cacheable', async () => {
+      // The guard in front of the real session middleware, as createApp mounts them.
+      const app = express();
+      app.use(noCookieOnCacheable);
+      app.use(sessionMiddleware({ pool: t.db.pool, secret: 'x'.repeat(20), clock: systemClock }));
+      app.get('/cacheable', (req, res) => {
+        req.session.returnTo = '/somewhere';
+        res.setHeader('Cache-Control', 'public, max-age=60');
+        res.json({ ok: true });
+      });
+      app.get('/uncached', (req, res) => {
+        req.session.returnTo = '/somewhere';
+        res.json({ ok: true });
+      });
+      expect(
+        (await request(app).get('/cacheable').expect(200)).headers['set-cookie'],
+      ).toBeUndefined();
+      expect((await request(app).get('/uncached').expect(200)).headers['set-cookie']).toBeDefined();
     });
 
     it('marks API answers no-store, errors included', async () => {
