@@ -12,15 +12,15 @@ as_root() { if [ "$(id -u)" = 0 ]; then "$@"; else sudo "$@"; fi; }
 # Runs apt-get, waiting (up to APT_LOCK_WAIT seconds, default 600) while another apt or dpkg
 # run holds Debian's package lock instead of failing at once.
 apt_get() {
-  local waited=0 limit="${APT_LOCK_WAIT:-600}" err; err="$(mktemp)"
+  local start=$SECONDS limit="${APT_LOCK_WAIT:-600}" said=0 err; err="$(mktemp)"
   while :; do
     if as_root env DEBIAN_FRONTEND=noninteractive apt-get -o DPkg::Lock::Timeout="$limit" "$@" 2>"$err"; then
       rm -f "$err"; return 0
     fi
-    if grep -qiE 'could not get lock|unable to acquire|lock-frontend|is another process using it' "$err" && [ "$waited" -lt "$limit" ]; then
-      [ "$waited" = 0 ] && log "another apt run holds the package lock; waiting for it to finish"
-      sleep 5; waited=$((waited + 5))
-      continue
+    if grep -qiE 'could not get lock|unable to acquire|lock-frontend|is another process using it' "$err" \
+      && [ $((SECONDS - start)) -lt "$limit" ]; then
+      [ "$said" = 1 ] || log "another apt run holds the package lock; waiting for it to finish"
+      said=1; sleep "${APT_LOCK_POLL:-5}"; continue
     fi
     cat "$err" >&2; rm -f "$err"; return 1
   done
