@@ -23,6 +23,11 @@ describe('sign-in through the fake GitHub', () => {
     expect(url.searchParams.get('redirect_uri')).toMatch(/\/auth\/github\/callback$/);
   });
 
+  it('refuses a malformed login hint with 400 at the edge', async () => {
+    const res = await request(t.app).get('/auth/github?login=%3Cscript%3E').expect(400);
+    expect(res.body.error.code).toBe('validation_error');
+  });
+
   it('uses PKCE: the authorize request carries an S256 code challenge', async () => {
     const res = await request(t.app).get('/auth/github?login=demo-curator').expect(302);
     const url = new URL(res.headers.location);

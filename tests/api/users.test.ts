@@ -1,5 +1,10 @@
 import { Client } from 'pg';
 import request from 'supertest';
+import {
+  MeAnswer,
+  RoleChangeAnswer,
+  UsersListAnswer,
+} from '../../server/src/modules/users/users-schemas';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 describe('users and roles', () => {
@@ -43,6 +48,8 @@ describe('users and roles', () => {
     it('lets an admin list users', async () => {
       const { agent } = await as('demo-admin');
       const res = await agent.get('/api/v1/users').expect(200);
+      UsersListAnswer.strict().parse(res.body);
+      MeAnswer.strict().parse((await agent.get('/api/v1/me').expect(200)).body);
       const logins = res.body.users.map((u: { login: string }) => u.login);
       expect(logins).toEqual(expect.arrayContaining(['demo-admin', 'demo-curator', 'demo-reader']));
       expect(res.body.users[0]).toEqual(
@@ -79,7 +86,11 @@ describe('users and roles', () => {
       .set('X-XSRF-TOKEN', xsrf)
       .send({ role: 'curator' })
       .expect(200);
-    expect(res.body.user).toMatchObject({ id: target, login: 'demo-editor-2', role: 'curator' });
+    expect(RoleChangeAnswer.strict().parse(res.body).user).toMatchObject({
+      id: target,
+      login: 'demo-editor-2',
+      role: 'curator',
+    });
 
     const audit = await t.db.pool.query(
       `select actor_id, action, before, after, at from audit_log

@@ -1,9 +1,11 @@
 import { Router } from 'express';
+import { z } from 'zod';
 import type { AuthenticateOptions } from 'passport';
 import type { Clock } from '../../adapters';
 import { AppError } from '../../lib/app-error';
 import { CSRF_COOKIE, issueCsrfToken } from '../../middleware/csrf';
 import { perMinuteLimit } from '../../middleware/rate-limit';
+import { validate } from '../../middleware/validate';
 import { PENDING_SIGN_IN_MS, SESSION_COOKIE, startSignedInSession } from '../../middleware/session';
 import type { UsersService } from '../users/users-service';
 import type { PassportInstance } from './auth-strategy';
@@ -17,6 +19,17 @@ declare module 'express-session' {
     returnTo?: string;
   }
 }
+
+/** `GET /auth/github`: an optional account hint and the page to come back to. */
+export const SignInQuery = z.object({
+  /** A GitHub login (1–39 letters, digits, hyphens); only the local stand-in acts on it. */
+  login: z
+    .string()
+    .regex(/^[A-Za-z0-9-]{1,39}$/, 'is not a GitHub login')
+    .optional(),
+  /** Checked by safeReturnTo: anything but a path on this site goes home, without an error. */
+  returnTo: z.string().optional(),
+});
 
 export interface AuthRouterOptions {
   passport: PassportInstance;
@@ -39,13 +52,14 @@ export function authRouter({
     perMinuteLimit(rateLimitPerMinute, 'Too many sign-in attempts; wait a minute and try again'),
   );
 
-  router.get('/github', (req, res, next) => {
-    const login = typeof req.query.login === 'string' ? req.query.login : undefined;
+  const signIn = validate({ query: SignInQuery });
+  router.get('/github', signIn, (req, res, next) => {
+    const { login, returnTo: asked } = signIn.input(res).query;
     // GitHub's own `login` parameter only suggests an account; the fake honours it outright.
     const options = (allowLoginHint && login ? { login } : {}) as AuthenticateOptions;
     // The session now holds only the OAuth state (and where to return): it need not live long.
     req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
-    const returnTo = safeReturnTo(req.query.returnTo);
+    const returnTo = safeReturnTo(asked);
     if (returnTo) req.session.returnTo = returnTo;
     else delete req.session.returnTo;
     passport.authenticate('github', options)(req, res, next);

@@ -2,7 +2,14 @@ import express, { Router } from 'express';
 import type { Database } from '../../db/client';
 import { requireRole, requireSignIn } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
-import { RoleChangeBody, toUserView, UserIdParams } from './users-schemas';
+import {
+  RoleChangeBody,
+  toUserView,
+  UserIdParams,
+  type MeAnswer,
+  type RoleChangeAnswer,
+  type UsersListAnswer,
+} from './users-schemas';
 import { createUsersService, type UsersService } from './users-service';
 
 /** Role changes are a few bytes; the limit only has to bound what an attacker can send. */
@@ -14,11 +21,11 @@ export function usersRouter(users: UsersService): Router {
 
   router.get('/me', requireSignIn, (req, res) => {
     const { createdAt: _createdAt, ...me } = toUserView(req.user!);
-    res.json(me);
+    res.json(me satisfies MeAnswer);
   });
 
   router.get('/users', requireRole('admin'), async (_req, res) => {
-    res.json({ users: (await users.list()).map(toUserView) });
+    res.json({ users: (await users.list()).map(toUserView) } satisfies UsersListAnswer);
   });
 
   const changeRole = validate({ params: UserIdParams, body: RoleChangeBody });
@@ -37,7 +44,8 @@ export function usersRouter(users: UsersService): Router {
     }),
     async (req, res) => {
       const { params, body } = changeRole.input(res);
-      res.json({ user: toUserView(await users.changeRole(req.user!, params.id, body.role)) });
+      const user = toUserView(await users.changeRole(req.user!, params.id, body.role));
+      res.json({ user } satisfies RoleChangeAnswer);
     },
   );
   return router;

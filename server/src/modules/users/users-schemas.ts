@@ -2,12 +2,45 @@ import { z } from 'zod';
 import { ROLES, type UserRow } from '../../../../schema';
 import { IdParams } from '../../middleware/validate';
 
+/**
+ * The contract of the users routes: requests (validated at the edge) and answers (checked in
+ * tests/api/users.test.ts). The client imports the inferred types with `import type` only.
+ */
+export const Role = z.enum(ROLES);
+
+// ---- PATCH /api/v1/users/:id ----
+
 /** `:id` of a user: the integer identity column's range, so 2^31 and beyond are a 400. */
 export const UserIdParams = IdParams;
-export const RoleChangeBody = z.object({ role: z.enum(ROLES) }).strict();
+export const RoleChangeBody = z.object({ role: Role }).strict();
+
+// ---- answers ----
+
+export const UserView = z.object({
+  id: z.number().int(),
+  login: z.string(),
+  name: z.string(),
+  role: Role,
+  avatarUrl: z.string().nullable(),
+  /** ISO 8601. */
+  createdAt: z.string(),
+});
+
+/** `GET /api/v1/me`. */
+export const MeAnswer = UserView.omit({ createdAt: true });
+/** `GET /api/v1/users`. */
+export const UsersListAnswer = z.object({ users: z.array(UserView) });
+/** `PATCH /api/v1/users/:id`. */
+export const RoleChangeAnswer = z.object({ user: UserView });
+
+export type UserView = z.infer<typeof UserView>;
+export type MeAnswer = z.infer<typeof MeAnswer>;
+export type UsersListAnswer = z.infer<typeof UsersListAnswer>;
+export type RoleChangeAnswer = z.infer<typeof RoleChangeAnswer>;
+export type RoleChangeInput = z.infer<typeof RoleChangeBody>;
 
 /** The public shape of a user; the one mapping every route uses. */
-export function toUserView(u: UserRow) {
+export function toUserView(u: UserRow): UserView {
   return {
     id: u.id,
     login: u.login,
@@ -17,8 +50,3 @@ export function toUserView(u: UserRow) {
     createdAt: u.createdAt.toISOString(),
   };
 }
-
-export type UserView = ReturnType<typeof toUserView>;
-export type MeView = Omit<UserView, 'createdAt'>;
-export type UsersListView = { users: UserView[] };
-export type RoleChangeInput = z.infer<typeof RoleChangeBody>;
