@@ -39,6 +39,18 @@ describe('sessions', () => {
     expect(Number(row.rows[0].left)).toBeLessThan(10 * 60 + 5);
   });
 
+  it("leaves a signed-in user's session lifetime alone when they start a sign-in again", async () => {
+    const agent = request.agent(t.app);
+    const { setCookie } = await signInFlow(agent, 'demo-editor');
+    const sid = decodeURIComponent(cookieValue(setCookie, 'thalpos.sid')!).slice(2).split('.')[0];
+    await agent.get('/auth/github').expect(302);
+    const left = await t.db.pool.query(
+      `select extract(epoch from expire - now()) as left from session where sid = $1`,
+      [sid],
+    );
+    expect(Number(left.rows[0].left)).toBeGreaterThan(7 * 3600);
+  });
+
   it('writes an active session at most once a minute', async () => {
     const agent = request.agent(t.app);
     const { setCookie } = await signInFlow(agent, 'demo-reader');

@@ -57,8 +57,9 @@ export function authRouter({
     const { login, returnTo: asked } = signIn.input(res).query;
     // GitHub's own `login` parameter only suggests an account; the fake honours it outright.
     const options = (allowLoginHint && login ? { login } : {}) as AuthenticateOptions;
-    // The session now holds only the OAuth state (and where to return): it need not live long.
-    req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
+    // A visitor's session now holds only the OAuth state (and where to return): it need not
+    // live long. A signed-in user's session keeps its lifetime if they abandon the round trip.
+    if (!req.user) req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
     const returnTo = safeReturnTo(asked);
     if (returnTo) req.session.returnTo = returnTo;
     else delete req.session.returnTo;
