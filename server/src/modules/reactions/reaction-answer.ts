@@ -1,21 +1,13 @@
-import {
-  assertBalanced,
-  autoBalance,
-  fromJoulesPerMole,
-  parseEquation,
-  printEquation,
-  reactionEnthalpy,
-  reactionEnthalpyAtT,
-  STANDARD_TEMPERATURE,
-  ThermoError,
-  type Equation,
-  type FormationValue,
-  type PhaseTransition,
-  type Term,
-  type TemperatureValue,
-  type TermContribution,
-  type TermAtTemperature,
-  type ThermalData,
+import * as thermo from '../../thermo';
+import type {
+  Equation,
+  FormationValue,
+  PhaseTransition,
+  Term,
+  TemperatureValue,
+  TermAtTemperature,
+  TermContribution,
+  ThermalData,
 } from '../../thermo';
 import { AppError } from '../../lib/app-error';
 import type { ReleaseSnapshot, SpeciesPhaseEntry } from '../releases/release-snapshot';
@@ -25,6 +17,12 @@ import type {
   ReactionTermAnswer,
   ReactionUnitName,
 } from './reactions-schemas';
+
+// Hot path: engine functions bound once (development module loaders put a getter on every
+// imported binding, which costs more than a small reaction's arithmetic).
+const { assertBalanced, autoBalance, buildEquation, fromJoulesPerMole, parseEquation } = thermo;
+const { printEquation, reactionEnthalpy, reactionEnthalpyAtT, STANDARD_TEMPERATURE } = thermo;
+const { ThermoError } = thermo;
 
 /** The safety caution every calculation answer carries (PRODUCT.md, Safety). */
 export const SAFETY_CAUTION =
@@ -41,17 +39,77 @@ export interface ReactionRequestOn {
 }
 
 type Answer = Omit<ReactionEnthalpyAnswer, 'caution'>;
+type StaticTerm = Omit<ReactionTermAnswer, 'coefficient' | 'deltaFH' | 'uncertainty'>;
+
+/**
+ * What an equation text means in one release, independent of temperature and unit: resolved,
+ * balance-checked, printed, with each term's provenance. A published release never changes, so
+ * plans are kept per snapshot (bounded); a temperature sweep or a repeated batch reuses them.
+ */
+interface Plan {
+  readonly resolution: Resolution;
+  readonly equation: Equation;
+  readonly printed: string;
+  readonly assumptions: readonly string[];
+  readonly values: ReadonlyMap<Term, FormationValue>;
+  readonly lookup: (t: Term) => FormationValue | undefined;
+  readonly statics: ReadonlyMap<Term, StaticTerm>;
+}
+
+const PLAN_LIMIT = 5000;
+const plans = new WeakMap<ReleaseSnapshot, Map<string, Plan>>();
+
+function planFor(snap: ReleaseSnapshot, text: string): Plan {
+  let cache = plans.get(snap);
+  if (!cache) plans.set(snap, (cache = new Map()));
+  let plan = cache.get(text);
+  if (!plan) {
+    plan = makePlan(snap, text);
+    if (cache.size >= PLAN_LIMIT) cache.clear();
+    cache.set(text, plan);
+  }
+  return plan;
+}
+
+function makePlan(snap: ReleaseSnapshot, text: string): Plan {
+  const resolution = resolveEquation(snap, parseEquation(text));
+  checkBalanced(resolution);
+  const values = new Map<Term, FormationValue>();
+  const statics = new Map<Term, StaticTerm>();
+  for (const [term, r] of resolution.byTerm) {
+    const f = r.entry?.formation;
+    if (f) {
+      values.set(term, {
+        value: f.joules,
+        uncertainty: f.uncertaintyJoules,
+        uncertaintyBasis: f.uncertaintyBasis,
+      });
+    }
+    statics.set(term, staticTerm(term, r));
+  }
+  // The engine's own (checked) form, so it does not re-check the terms on every request.
+  const built = buildEquation(resolution.equation.reactants, resolution.equation.products);
+  const same = [...built.reactants, ...built.products].every((t) => resolution.byTerm.has(t));
+  return {
+    resolution,
+    equation: same ? built : resolution.equation,
+    printed: printEquation(resolution.equation),
+    assumptions: Object.freeze([...resolution.assumptions, ...pressureNotes(resolution)]),
+    values,
+    lookup: (t) => values.get(t),
+    statics,
+  };
+}
 
 /**
  * ΔrH° of one equation against one release snapshot: parse, resolve, balance, then Hess's law
  * (and Kirchhoff's law away from 298.15 K) in the engine. Throws ThermoError or AppError.
  */
 export function computeReaction(snap: ReleaseSnapshot, req: ReactionRequestOn): Answer {
-  const resolution = resolveEquation(snap, parseEquation(req.equation));
-  checkBalanced(resolution);
+  const plan = planFor(snap, req.equation);
   return req.temperatureK === STANDARD_TEMPERATURE
-    ? atStandard(snap, resolution, req)
-    : atTemperature(snap, resolution, req);
+    ? atStandard(snap, plan, req)
+    : atTemperature(snap, plan, req);
 }
 
 function checkBalanced(r: Resolution): void {
@@ -87,41 +145,38 @@ function suggestion(eq: Equation): string | null {
   }
 }
 
-/** The value the engine sees for a resolved term; provenance passes through in `resolved`. */
-function formationOf(r: ResolvedTerm): FormationValue | undefined {
-  const f = r.entry?.formation;
-  if (!f) return undefined;
-  return {
-    value: f.joules,
-    uncertainty: f.uncertaintyJoules,
-    uncertaintyBasis: f.uncertaintyBasis,
-  };
-}
-
-function atStandard(snap: ReleaseSnapshot, r: Resolution, req: ReactionRequestOn): Answer {
-  const result = reactionEnthalpy(r.equation, (t) => formationOf(r.byTerm.get(t)!), {
-    requireBalanced: false,
-  });
+function atStandard(snap: ReleaseSnapshot, plan: Plan, req: ReactionRequestOn): Answer {
+  const result = reactionEnthalpy(plan.equation, plan.lookup, { requireBalanced: false });
   const out = converter(req.unit);
+  const terms: ReactionTermAnswer[] = [];
+  for (const c of result.terms) terms.push(termAnswer(c, plan.statics.get(c.term)!, out));
   return {
     release: snap.version,
-    equation: printEquation(r.equation),
+    equation: plan.printed,
     temperatureK: req.temperatureK,
     unit: req.unit,
     deltaH: out(result.deltaH),
     uncertainty: result.uncertainty === null ? null : out(result.uncertainty),
     uncertaintyBasis: basisText(result.uncertainty, result.uncertaintyBasis),
-    terms: result.terms.map((c) => termAnswer(c, r.byTerm.get(c.term)!, out)),
-    assumptions: [...r.assumptions, ...pressureNotes(r)],
+    terms,
+    assumptions: plan.assumptions as string[],
   };
 }
 
-function atTemperature(snap: ReleaseSnapshot, r: Resolution, req: ReactionRequestOn): Answer {
+interface Thermal {
+  readonly data: ThermalData;
+  /** Revision of each transition crossed, by temperature. */
+  readonly revisions: ReadonlyMap<number, string>;
+  readonly heatCapacity: NonNullable<ReactionTermAnswer['heatCapacity']>;
+}
+
+function atTemperature(snap: ReleaseSnapshot, plan: Plan, req: ReactionRequestOn): Answer {
   const T = req.temperatureK;
   const missing: { species: string; needs: string }[] = [];
-  const thermal = new Map<Term, ThermalData | undefined>();
-  for (const [term, resolved] of r.byTerm) {
-    thermal.set(term, thermalData(term, resolved.entry, T, missing));
+  const thermal = new Map<Term, Thermal>();
+  for (const [term, resolved] of plan.resolution.byTerm) {
+    const th = thermalData(term, resolved.entry, T, missing);
+    if (th) thermal.set(term, th);
   }
   if (missing.length > 0) {
     throw new AppError(
@@ -132,25 +187,26 @@ function atTemperature(snap: ReleaseSnapshot, r: Resolution, req: ReactionReques
     );
   }
   const lookup = (t: Term): TemperatureValue | undefined => {
-    const f = formationOf(r.byTerm.get(t)!);
-    const th = thermal.get(t);
-    return f === undefined && th === undefined ? undefined : { ...f, thermal: th };
+    const f = plan.values.get(t);
+    const th = thermal.get(t)!.data;
+    return f === undefined ? { thermal: th } : { ...f, thermal: th };
   };
-  const result = reactionEnthalpyAtT(r.equation, T, lookup, { requireBalanced: false });
+  const result = reactionEnthalpyAtT(plan.equation, T, lookup, { requireBalanced: false });
   const out = converter(req.unit);
   return {
     release: snap.version,
-    equation: printEquation(r.equation),
+    equation: plan.printed,
     temperatureK: T,
     unit: req.unit,
     deltaH: out(result.deltaH),
     deltaH298: out(result.deltaH298),
     uncertainty: result.uncertainty === null ? null : out(result.uncertainty),
     uncertaintyBasis: basisText(result.uncertainty, result.uncertaintyBasis),
-    terms: result.terms.map((c) => temperatureTerm(c, r.byTerm.get(c.term)!, out)),
+    terms: result.terms.map((c) =>
+      temperatureTerm(c, plan.statics.get(c.term)!, thermal.get(c.term)!, out),
+    ),
     assumptions: [
-      ...r.assumptions,
-      ...pressureNotes(r),
+      ...plan.assumptions,
       `ΔrH°(${T} K) by Kirchhoff's law from the release's heat-capacity sets; the uncertainty covers the 298.15 K formation enthalpies only`,
     ],
   };
@@ -165,7 +221,7 @@ function thermalData(
   entry: SpeciesPhaseEntry | null,
   T: number,
   missing: { species: string; needs: string }[],
-): ThermalData | undefined {
+): Thermal | undefined {
   const model = entry?.heatCapacity?.model;
   if (!entry || !model) {
     missing.push({ species: term.id, needs: 'heat-capacity data' });
@@ -173,6 +229,7 @@ function thermalData(
   }
   const up = T > STANDARD_TEMPERATURE;
   const transitions: PhaseTransition[] = [];
+  const revisions = new Map<number, string>();
   let at = entry;
   let from = STANDARD_TEMPERATURE;
   for (;;) {
@@ -194,16 +251,32 @@ function thermalData(
       phase: up ? next.to.phase : next.from.phase,
       model: beyond.heatCapacity.model,
     });
+    revisions.set(next.temperature, next.revisionId);
     at = beyond;
     from = next.temperature;
   }
-  return { model, transitions };
+  const set = entry.heatCapacity!;
+  return {
+    data: { model, transitions },
+    revisions,
+    heatCapacity: {
+      revisionId: set.revisionId,
+      source: { citation: set.source.citation, doi: set.source.doi },
+    },
+  };
 }
 
 type Convert = (jPerMol: number) => number;
 
+const SAME: Convert = (v) => v;
+const CONVERTERS: Record<ReactionUnitName, Convert> = {
+  'J/mol': SAME,
+  'kJ/mol': (v) => fromJoulesPerMole(v, 'kJ/mol'),
+  'kcal/mol': (v) => fromJoulesPerMole(v, 'kcal/mol'),
+};
+
 function converter(unit: ReactionUnitName): Convert {
-  return unit === 'J/mol' ? (v) => v : (v) => fromJoulesPerMole(v, unit);
+  return CONVERTERS[unit];
 }
 
 function basisText(uncertainty: number | null, basis: string | null): string {
@@ -222,40 +295,72 @@ function pressureNotes(r: Resolution): string[] {
       ];
 }
 
-function termAnswer(c: TermContribution, r: ResolvedTerm, out: Convert): ReactionTermAnswer {
+/** Everything of a term's answer that does not depend on temperature or unit. */
+function staticTerm(term: Term, r: ResolvedTerm): StaticTerm {
   const f = r.entry?.formation ?? null;
-  const reference = c.referenceState;
   return {
     species: r.species?.key ?? null,
-    formula: r.species?.formula ?? (c.term.species.kind === 'formula' ? c.term.species.hill : ''),
-    phase: c.term.phase as ReactionTermAnswer['phase'],
-    modification: c.term.modification,
-    coefficient: c.nu.valueOf(),
-    deltaFH: out(c.formationEnthalpy),
-    uncertainty: c.uncertainty === null ? null : out(c.uncertainty),
-    uncertaintyBasis: reference ? null : c.uncertaintyBasis,
+    formula: r.species?.formula ?? (term.species.kind === 'formula' ? term.species.hill : ''),
+    phase: term.phase as ReactionTermAnswer['phase'],
+    modification: term.modification,
+    uncertaintyBasis: null,
     revisionId: f?.revisionId ?? null,
     source: f ? { citation: f.source.citation, doi: f.source.doi } : null,
-    referenceState: reference,
-    note: reference ? REFERENCE_NOTE : null,
+    referenceState: r.referenceState,
+    note: r.referenceState ? REFERENCE_NOTE : null,
     standardPressure: f?.standardPressure ?? null,
   };
 }
 
-function temperatureTerm(c: TermAtTemperature, r: ResolvedTerm, out: Convert): ReactionTermAnswer {
-  const cp = r.entry?.heatCapacity ?? null;
-  const crossed = r.entry ? [...r.entry.transitionsUp, ...r.entry.transitionsDown] : [];
+function termAnswer(c: TermContribution, s: StaticTerm, out: Convert): ReactionTermAnswer {
   return {
-    ...termAnswer(c, r, out),
+    species: s.species,
+    formula: s.formula,
+    phase: s.phase,
+    modification: s.modification,
+    coefficient: c.nu.valueOf(),
+    deltaFH: out(c.formationEnthalpy),
+    uncertainty: c.uncertainty === null ? null : out(c.uncertainty),
+    uncertaintyBasis: c.referenceState ? null : c.uncertaintyBasis,
+    revisionId: s.revisionId,
+    source: s.source,
+    referenceState: c.referenceState,
+    note: s.note,
+    standardPressure: s.standardPressure,
+  };
+}
+
+function temperatureTerm(
+  c: TermAtTemperature,
+  s: StaticTerm,
+  th: Thermal,
+  out: Convert,
+): ReactionTermAnswer {
+  // Written out rather than spread from termAnswer: this runs for every term of every item.
+  return {
+    species: s.species,
+    formula: s.formula,
+    phase: s.phase,
+    modification: s.modification,
+    coefficient: c.nu.valueOf(),
+    deltaFH: out(c.formationEnthalpy),
+    uncertainty: c.uncertainty === null ? null : out(c.uncertainty),
+    uncertaintyBasis: c.referenceState ? null : c.uncertaintyBasis,
+    revisionId: s.revisionId,
+    source: s.source,
+    referenceState: c.referenceState,
+    note: s.note,
+    standardPressure: s.standardPressure,
     enthalpyIncrement: out(c.increment),
-    transitions: c.transitions.map((tr) => ({
-      temperature: tr.temperature,
-      deltaH: out(tr.deltaH),
-      phase: tr.phase,
-      revisionId: crossed.find((x) => x.temperature === tr.temperature)?.revisionId ?? null,
-    })),
-    heatCapacity: cp
-      ? { revisionId: cp.revisionId, source: { citation: cp.source.citation, doi: cp.source.doi } }
-      : null,
+    transitions:
+      c.transitions.length === 0
+        ? []
+        : c.transitions.map((tr) => ({
+            temperature: tr.temperature,
+            deltaH: out(tr.deltaH),
+            phase: tr.phase,
+            revisionId: th.revisions.get(tr.temperature) ?? null,
+          })),
+    heatCapacity: th.heatCapacity,
   };
 }

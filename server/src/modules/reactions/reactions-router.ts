@@ -69,7 +69,8 @@ async function answerOne(
     return;
   }
   try {
-    res.json(service.compute(snap, request));
+    // Plain numbers and text only: the app's replacer (for exact fractions) is not needed.
+    res.type('application/json').send(JSON.stringify(service.compute(snap, request)));
   } catch (err) {
     // Errors are not release data: the API's default (no-store) applies.
     res.removeHeader('ETag');

@@ -179,4 +179,5 @@ export type ReactionUnitName = z.infer<typeof ReactionUnit>;
 export type ReactionTermAnswer = z.infer<typeof ReactionTerm>;
 export type ReactionEnthalpyAnswer = z.infer<typeof ReactionAnswer>;
 export type BatchItem = z.infer<typeof BatchItemAnswer>;
+export type BatchItemResult = z.infer<typeof BatchItemResult>;
 export type ReactionBatchAnswer = z.infer<typeof BatchAnswer>;

@@ -1,10 +1,12 @@
 import { AppError } from '../../lib/app-error';
+import { THERMO_ERROR_STATUS } from '../../middleware/error-handler';
 import { isThermoError, thermoJsonReplacer } from '../../thermo';
 import type { ReleaseSnapshot } from '../releases/release-snapshot';
 import { computeReaction, SAFETY_CAUTION } from './reaction-answer';
 import type {
   BatchInput,
   BatchItem,
+  BatchItemResult,
   ReactionBatchAnswer,
   ReactionEnthalpyAnswer,
   ReactionInput,
@@ -39,26 +41,27 @@ export function createReactionsService(snapshots: SnapshotSource): ReactionsServ
     },
     batch(snap, input) {
       let errors = 0;
-      const results = input.reactions.map((item, index): BatchItem => {
-        const id = item.id ?? null;
+      const results = input.reactions.map((reaction, index): BatchItem => {
+        const id = reaction.id ?? null;
         try {
           const answer = computeReaction(snap, {
-            equation: item.equation,
-            temperatureK: item.temperatureK ?? 298.15,
+            equation: reaction.equation,
+            temperatureK: reaction.temperatureK ?? 298.15,
             unit: input.unit,
           });
-          return {
+          const item: BatchItemResult = {
             index,
             id,
             equation: answer.equation,
             temperatureK: answer.temperatureK,
             deltaH: answer.deltaH,
-            ...(answer.deltaH298 === undefined ? {} : { deltaH298: answer.deltaH298 }),
             uncertainty: answer.uncertainty,
             uncertaintyBasis: answer.uncertaintyBasis,
             terms: answer.terms,
             assumptions: answer.assumptions,
           };
+          if (answer.deltaH298 !== undefined) item.deltaH298 = answer.deltaH298;
+          return item;
         } catch (err) {
           errors++;
           return { index, id, error: errorBody(err) };
@@ -87,7 +90,7 @@ function errorBody(err: unknown): { status: number; code: string; message: strin
   if (isThermoError(err)) {
     return {
       // As the error handler answers a single request.
-      status: BAD_REQUEST_CODES.has(err.code) ? 400 : 422,
+      status: THERMO_ERROR_STATUS[err.code],
       code: err.code,
       message: err.message,
       ...plain(err.details),
@@ -95,8 +98,6 @@ function errorBody(err: unknown): { status: number; code: string; message: strin
   }
   throw err;
 }
-
-const BAD_REQUEST_CODES = new Set(['parse_error', 'unknown_element', 'invalid_input']);
 
 /** Engine details may hold exact fractions: written as text, as the app's JSON replacer does. */
 function plain(details: Record<string, unknown>): Record<string, unknown> {

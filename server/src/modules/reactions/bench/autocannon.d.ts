@@ -4,6 +4,7 @@ declare module 'autocannon' {
     url: string;
     connections?: number;
     duration?: number;
+    headers?: Record<string, string>;
   }
   interface Result {
     requests: { average: number };

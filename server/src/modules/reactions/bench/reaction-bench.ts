@@ -44,15 +44,24 @@ function inProcess(): void {
   const service = createReactionsService(async () => snap);
   for (let i = 0; i < 3; i++) service.batch(snap, { unit: 'kJ/mol', reactions }); // warm-up
   const runs: number[] = [];
+  const cpu: number[] = [];
   for (let i = 0; i < 5; i++) {
     const start = performance.now();
+    const cpuStart = process.cpuUsage();
     const answer = service.batch(snap, { unit: 'kJ/mol', reactions });
+    const used = process.cpuUsage(cpuStart);
     runs.push(performance.now() - start);
+    cpu.push((used.user + used.system) / 1000);
     if (answer.errors !== 0) throw new Error(`${answer.errors} reactions failed`);
   }
   const best = Math.min(...runs);
   console.log(
     `batch of ${BATCH} in process (best of 5):   ${best.toFixed(0)} ms  → ${rate(BATCH, best)} reactions/s  (target ≥ 50,000)`,
+  );
+  // On a shared machine the wall clock includes waiting for a core; CPU time does not.
+  const bestCpu = Math.min(...cpu);
+  console.log(
+    `  the same in CPU time of this process:  ${bestCpu.toFixed(0)} ms  → ${rate(BATCH, bestCpu)} reactions/s`,
   );
 }
 
@@ -81,18 +90,19 @@ async function overHttp(base: string): Promise<void> {
   );
 }
 
-async function requestsPerSecond(url: string): Promise<number> {
-  const result = await autocannon({ url, connections: CONNECTIONS, duration: SECONDS });
-  if (result.non2xx > 0 || result.errors > 0) {
+async function requestsPerSecond(url: string, headers?: Record<string, string>): Promise<number> {
+  const result = await autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers });
+  if (result.errors > 0 || (result.non2xx > 0 && !headers)) {
     throw new Error(`${url}: ${result.non2xx} non-2xx answers, ${result.errors} errors`);
   }
   return result.requests.average;
 }
 
 async function main(): Promise<void> {
-  if (!process.env['DATABASE_URL']) throw new Error('run through `npm run bench:reactions`');
   console.log('Thalpos reaction-enthalpy benchmark');
   inProcess();
+  // In-process figures only: `npx tsx server/src/modules/reactions/bench/reaction-bench.ts`.
+  if (!process.env['DATABASE_URL']) return;
 
   const server = fork(path.join(__dirname, 'reaction-bench-server.ts'), {
     execArgv: ['--import', 'tsx'],
@@ -111,8 +121,12 @@ async function main(): Promise<void> {
     await requestsPerSecond(reaction); // warm-up: snapshot built, code optimised
     const bare = await requestsPerSecond(`${base}/bare`);
     const computed = await requestsPerSecond(reaction);
+    // The same route answered 304 from its ETag: the application's middleware without the work.
+    const etag = (await fetch(reaction)).headers.get('etag') ?? '';
+    const unchanged = await requestsPerSecond(reaction, { 'if-none-match': etag });
     console.log(`bare JSON route:                         ${Math.round(bare)} requests/s`);
     console.log(`GET /api/v1/reaction-enthalpy:           ${Math.round(computed)} requests/s`);
+    console.log(`same route, 304 Not Modified:           ${Math.round(unchanged)} requests/s`);
     console.log(
       `ratio (${CONNECTIONS} connections, ${SECONDS} s each):          ${(computed / bare).toFixed(2)}  (target ≥ 0.8)`,
     );
