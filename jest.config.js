@@ -33,7 +33,8 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
-      testTimeout: 120000,
+      // A project-level `testTimeout` is ignored by Jest; the setup file sets it.
+      setupFilesAfterEnv: ['<rootDir>/tests/support/e2e-timeout.ts'],
     },
     {
       displayName: 'client',

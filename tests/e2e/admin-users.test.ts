@@ -1,4 +1,10 @@
-import { openBrowser, screenshot, type BrowserSession } from '../support/browser';
+import {
+  openBrowser,
+  PHONE,
+  screenshot,
+  sidewaysOverflow,
+  type BrowserSession,
+} from '../support/browser';
 
 describe('admin changes a role in the browser', () => {
   let s: BrowserSession;
@@ -39,6 +45,12 @@ describe('admin changes a role in the browser', () => {
       page.getByRole('combobox', { name: 'Role for demo-reader' }).textContent(),
     ).resolves.toMatch(/curator/);
     await screenshot(page, 'admin-users');
+
+    // At phone width the users table fits: nothing sticks out sideways.
+    await page.setViewportSize(PHONE);
+    await page.getByRole('combobox', { name: 'Role for demo-reader' }).waitFor();
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await screenshot(page, 'admin-users-phone');
     expect(s.problems).toEqual([]);
   });
 });

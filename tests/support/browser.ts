@@ -19,8 +19,14 @@ export interface BrowserSession {
   close(): Promise<void>;
 }
 
+/** Desktop and phone sizes the screens are checked at. */
+export const DESKTOP = { width: 1366, height: 900 } as const;
+export const PHONE = { width: 390, height: 844 } as const;
+
 /** The real app on a port of its own, driven by Debian's Chromium with a fresh profile. */
-export async function openBrowser(): Promise<BrowserSession> {
+export async function openBrowser(
+  viewport: { width: number; height: number } = DESKTOP,
+): Promise<BrowserSession> {
   const t = await createTestApp();
   const server: Server = await new Promise((resolve) => {
     const s = t.app.listen(0, '127.0.0.1', () => resolve(s));
@@ -30,7 +36,7 @@ export async function openBrowser(): Promise<BrowserSession> {
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
     headless: true,
-    viewport: { width: 1280, height: 860 },
+    viewport,
     args: [
       '--no-sandbox',
       '--disable-gpu',
@@ -70,3 +76,7 @@ export async function openBrowser(): Promise<BrowserSession> {
 
 export const screenshot = (page: Page, name: string) =>
   page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
+
+/** How far the page sticks out sideways beyond the viewport (0 when it fits). */
+export const sidewaysOverflow = (page: Page) =>
+  page.evaluate<number>('document.documentElement.scrollWidth - window.innerWidth');

@@ -198,7 +198,7 @@ describe('HessPage', () => {
   it('shows ΔrH° at its temperature, exothermic, each step as used, and why ± is missing', async () => {
     await solved();
 
-    expect(text('.total')).toBe('ΔrH°(298.15 K) \u2212802.29 kJ/mol');
+    expect(text('.total')).toBe('ΔrH°(298.15 K) = \u2212802.29 kJ/mol');
     expect(text('.direction')).toBe('Exothermic: heat is released');
     expect(text('.uncertainty-note')).toBe('Uncertainty not combined: step 1 has none.');
     const rows = Array.from(element.querySelectorAll('table.used tbody tr')).map((tr) =>

@@ -30,6 +30,11 @@ export class HessResult {
   /** Absolute link that brings back the inputs this result was computed from. */
   readonly link = input.required<string>();
 
+  protected readonly totalText = computed(() => {
+    const { total, uncertainty, unit } = this.view();
+    return `${total}${uncertainty === null ? '' : ` ± ${uncertainty}`} ${unit}`;
+  });
+
   protected readonly signWord = computed(() => {
     const direction = this.view().direction;
     if (direction === 'exothermic') return 'Exothermic: heat is released';
