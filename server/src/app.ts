@@ -17,6 +17,8 @@ import { createAuthModule } from './modules/auth/auth-module';
 import { REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
 import { createCalculateModule } from './modules/calculate/calculate-router';
 import { createHealthModule } from './modules/health/health-router';
+import { createSearchModule } from './modules/search/search-router';
+import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
 import { createReleasesModule } from './modules/releases/releases-router';
 import { createUsersModule } from './modules/users/users-router';
@@ -65,6 +67,8 @@ export function createApp(deps: AppDeps): Express {
   });
   const calculate = createCalculateModule();
   const releases = createReleasesModule({ db: database.db });
+  const species = createSpeciesModule({ db: database.db, releases: releases.service });
+  const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
 
   // Before any session: health answers while the database is down, and static files and the
@@ -85,6 +89,8 @@ export function createApp(deps: AppDeps): Express {
     calculate.router,
     releases.router,
     reactions.router,
+    species.router,
+    search.router,
   );
   app.use(['/api', '/auth'], notFoundHandler);
   app.use(errorHandler);

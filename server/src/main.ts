@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { loadConfig, type AppConfig } from './config/env';
 import { connectDatabase } from './db/client';
+import { ensureStarterRelease } from './db/load-starter';
 import { runMigrations } from './db/migrate';
 import { seedDemoData } from './db/seed-demo';
 import type { FakeGithub } from './fakes/github-fake';
@@ -20,6 +21,8 @@ async function main(): Promise<void> {
     await owner.pool.end();
   }
   const database = connectDatabase(config.databaseUrl, logger);
+  const starter = await ensureStarterRelease(database.db);
+  if (starter.loaded) logger.info(starter, 'starter dataset loaded and published');
   if (config.demoData) await seedDemoData(database.db);
 
   let fake: FakeGithub | null = null;

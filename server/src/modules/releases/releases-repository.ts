@@ -1,0 +1,201 @@
+import { aliasedTable, and, asc, desc, eq, inArray, like, sql } from 'drizzle-orm';
+import {
+  heatCapacityRanges,
+  releaseEntries,
+  releases,
+  revisions,
+  sources,
+  species,
+  speciesPhases,
+  users,
+  type ReleaseRow,
+} from '../../../../schema';
+import type { Database, Tx } from '../../db/client';
+
+export type Queryable = Database | Tx;
+
+const publisher = aliasedTable(users, 'publisher');
+
+export interface ReleaseListRow extends ReleaseRow {
+  publishedByLogin: string | null;
+  publishedByName: string | null;
+}
+
+export interface ReleaseCounts {
+  species: number;
+  speciesPhases: number;
+  formationEnthalpies: number;
+  heatCapacitySets: number;
+  transitions: number;
+  sources: number;
+}
+
+const listColumns = {
+  id: releases.id,
+  version: releases.version,
+  notes: releases.notes,
+  status: releases.status,
+  createdBy: releases.createdBy,
+  createdAt: releases.createdAt,
+  publishedBy: releases.publishedBy,
+  publishedAt: releases.publishedAt,
+  publishedByLogin: publisher.login,
+  publishedByName: publisher.name,
+};
+
+/** The value columns of pinned rows, with their species-phase and source, for snapshots. */
+const pinnedColumns = {
+  revisionId: revisions.id,
+  speciesKey: species.key,
+  phase: speciesPhases.phase,
+  modification: speciesPhases.modification,
+  value: revisions.value,
+  uncertainty: revisions.uncertainty,
+  uncertaintyBasis: revisions.uncertaintyBasis,
+  method: revisions.method,
+  standardPressure: revisions.standardPressure,
+  temperature: revisions.temperature,
+  toPhase: revisions.toPhase,
+  toModification: revisions.toModification,
+  heatCapacityForm: revisions.heatCapacityForm,
+  sourceId: sources.id,
+  citation: sources.citation,
+  doi: sources.doi,
+};
+
+export const releasesRepository = {
+  async findByVersion(db: Queryable, version: string): Promise<ReleaseListRow | undefined> {
+    const [row] = await db
+      .select(listColumns)
+      .from(releases)
+      .leftJoin(publisher, eq(publisher.id, releases.publishedBy))
+      .where(eq(releases.version, version));
+    return row;
+  },
+
+  /** The newest published release: last published, ties broken by id. */
+  async findLatestPublished(db: Queryable): Promise<ReleaseListRow | undefined> {
+    const [row] = await db
+      .select(listColumns)
+      .from(releases)
+      .leftJoin(publisher, eq(publisher.id, releases.publishedBy))
+      .where(eq(releases.status, 'published'))
+      .orderBy(desc(releases.publishedAt), desc(releases.id))
+      .limit(1);
+    return row;
+  },
+
+  listPublished(db: Queryable): Promise<ReleaseListRow[]> {
+    return db
+      .select(listColumns)
+      .from(releases)
+      .leftJoin(publisher, eq(publisher.id, releases.publishedBy))
+      .where(eq(releases.status, 'published'))
+      .orderBy(desc(releases.publishedAt), desc(releases.id));
+  },
+
+  async counts(db: Queryable, releaseId: number): Promise<ReleaseCounts> {
+    const [row] = await db
+      .select({
+        species: sql<number>`count(distinct ${speciesPhases.speciesId})::int`,
+        speciesPhases: sql<number>`count(distinct ${releaseEntries.speciesPhaseId})::int`,
+        formationEnthalpies: sql<number>`(count(*) filter (where ${releaseEntries.quantity} = 'formation_enthalpy'))::int`,
+        heatCapacitySets: sql<number>`(count(*) filter (where ${releaseEntries.quantity} = 'heat_capacity'))::int`,
+        transitions: sql<number>`(count(*) filter (where ${releaseEntries.quantity} like 'transition:%'))::int`,
+        sources: sql<number>`count(distinct ${revisions.sourceId})::int`,
+      })
+      .from(releaseEntries)
+      .innerJoin(speciesPhases, eq(speciesPhases.id, releaseEntries.speciesPhaseId))
+      .innerJoin(revisions, eq(revisions.id, releaseEntries.revisionId))
+      .where(eq(releaseEntries.releaseId, releaseId));
+    return row!;
+  },
+
+  async insertDraft(
+    tx: Tx,
+    draft: { version: string; notes: string; createdBy: number },
+  ): Promise<ReleaseRow> {
+    const [row] = await tx.insert(releases).values(draft).returning();
+    return row!;
+  },
+
+  async lockByVersion(tx: Tx, version: string): Promise<ReleaseRow | undefined> {
+    const [row] = await tx
+      .select()
+      .from(releases)
+      .where(eq(releases.version, version))
+      .for('update');
+    return row;
+  },
+
+  /** Pins the one accepted revision of every species-phase and quantity; returns how many. */
+  async pinAccepted(tx: Tx, releaseId: number): Promise<number> {
+    const result = await tx.execute(sql`
+      insert into ${releaseEntries} (release_id, species_phase_id, quantity, revision_id)
+      select ${releaseId}, ${revisions.speciesPhaseId}, ${revisions.quantity}, ${revisions.id}
+      from ${revisions} where ${revisions.status} = 'accepted'
+      on conflict do nothing`);
+    return result.rowCount ?? 0;
+  },
+
+  async markPublished(tx: Tx, releaseId: number, userId: number): Promise<ReleaseRow> {
+    const [row] = await tx
+      .update(releases)
+      .set({ status: 'published', publishedBy: userId, publishedAt: sql`now()` })
+      .where(eq(releases.id, releaseId))
+      .returning();
+    return row!;
+  },
+
+  /** Pinned revisions of one quantity (or of every transition) with species-phase and source. */
+  pinned(
+    db: Queryable,
+    releaseId: number,
+    quantity: 'formation_enthalpy' | 'heat_capacity' | 'transition',
+  ) {
+    return db
+      .select(pinnedColumns)
+      .from(releaseEntries)
+      .innerJoin(revisions, eq(revisions.id, releaseEntries.revisionId))
+      .innerJoin(speciesPhases, eq(speciesPhases.id, releaseEntries.speciesPhaseId))
+      .innerJoin(species, eq(species.id, speciesPhases.speciesId))
+      .innerJoin(sources, eq(sources.id, revisions.sourceId))
+      .where(
+        and(
+          eq(releaseEntries.releaseId, releaseId),
+          quantity === 'transition'
+            ? like(releaseEntries.quantity, 'transition:%')
+            : eq(releaseEntries.quantity, quantity),
+        ),
+      );
+  },
+
+  /** Heat-capacity ranges of the given revisions, in order. */
+  rangesOf(db: Queryable, revisionIds: number[]) {
+    if (revisionIds.length === 0) return Promise.resolve([]);
+    return db
+      .select()
+      .from(heatCapacityRanges)
+      .where(inArray(heatCapacityRanges.revisionId, revisionIds))
+      .orderBy(asc(heatCapacityRanges.revisionId), asc(heatCapacityRanges.seq));
+  },
+
+  /** Every species with at least one value pinned in the release. */
+  speciesOf(db: Queryable, releaseId: number) {
+    return db
+      .selectDistinct({
+        id: species.id,
+        key: species.key,
+        name: species.name,
+        formula: species.formula,
+        charge: species.charge,
+        synonyms: species.synonyms,
+        casRn: species.casRn,
+        inchiKey: species.inchiKey,
+      })
+      .from(releaseEntries)
+      .innerJoin(speciesPhases, eq(speciesPhases.id, releaseEntries.speciesPhaseId))
+      .innerJoin(species, eq(species.id, speciesPhases.speciesId))
+      .where(eq(releaseEntries.releaseId, releaseId));
+  },
+};

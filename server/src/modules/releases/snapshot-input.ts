@@ -1,0 +1,131 @@
+import type { HeatCapacityModel, ShomateRange } from '../../thermo';
+import type { Queryable } from './releases-repository';
+import { releasesRepository } from './releases-repository';
+import type {
+  SnapshotHeatCapacitySet,
+  SnapshotInput,
+  SnapshotSource,
+  StandardPressure,
+} from './release-snapshot';
+
+interface RangeRow {
+  revisionId: number;
+  seq: number;
+  tMin: string;
+  tMax: string;
+  coefficients: (string | null)[];
+}
+
+const num = (t: string | null | undefined): number => Number(t);
+
+/** Rebuilds the engine's model from stored ranges (coefficients c1… as the source printed them). */
+export function modelFromRanges(
+  form: 'nasa7' | 'shomate',
+  ranges: readonly RangeRow[],
+): HeatCapacityModel {
+  if (form === 'nasa7') {
+    const [low, high] = ranges;
+    if (!low || !high || ranges.length !== 2)
+      throw new Error('a NASA 7-coefficient set needs two ranges');
+    return {
+      kind: 'nasa7',
+      tLow: num(low.tMin),
+      tMid: num(low.tMax),
+      tHigh: num(high.tMax),
+      low: low.coefficients.slice(0, 7).map(num),
+      high: high.coefficients.slice(0, 7).map(num),
+    };
+  }
+  return {
+    kind: 'shomate',
+    ranges: ranges.map((r): ShomateRange => {
+      const [A, B, C, D, E, F, , H] = r.coefficients;
+      return {
+        tMin: num(r.tMin),
+        tMax: num(r.tMax),
+        A: num(A),
+        B: num(B),
+        C: num(C),
+        D: num(D),
+        E: num(E),
+        // drizzle reads a NULL array element as the text 'NULL'.
+        ...(F != null && F !== 'NULL' && H != null && H !== 'NULL' ? { F: num(F), H: num(H) } : {}),
+      };
+    }),
+  };
+}
+
+const sourceOf = (r: {
+  sourceId: number;
+  citation: string;
+  doi: string | null;
+}): SnapshotSource => ({
+  id: String(r.sourceId),
+  citation: r.citation,
+  doi: r.doi,
+});
+
+/** The plain rows of one release from the database: what `buildSnapshot` indexes. */
+export async function loadSnapshotInput(
+  db: Queryable,
+  release: { id: number; version: string; publishedAt: Date | null },
+): Promise<SnapshotInput> {
+  const [speciesRows, formation, heat, transitions] = await Promise.all([
+    releasesRepository.speciesOf(db, release.id),
+    releasesRepository.pinned(db, release.id, 'formation_enthalpy'),
+    releasesRepository.pinned(db, release.id, 'heat_capacity'),
+    releasesRepository.pinned(db, release.id, 'transition'),
+  ]);
+  const ranges = await releasesRepository.rangesOf(
+    db,
+    heat.map((h) => h.revisionId),
+  );
+  const rangesByRevision = new Map<number, RangeRow[]>();
+  for (const r of ranges) {
+    const list = rangesByRevision.get(r.revisionId);
+    if (list) list.push(r);
+    else rangesByRevision.set(r.revisionId, [r]);
+  }
+  return {
+    version: release.version,
+    publishedAt: release.publishedAt?.toISOString() ?? null,
+    species: speciesRows.map((s) => ({
+      key: s.key,
+      name: s.name,
+      formula: s.formula,
+      charge: s.charge,
+      synonyms: s.synonyms,
+    })),
+    formationValues: formation.map((f) => ({
+      revisionId: String(f.revisionId),
+      speciesKey: f.speciesKey,
+      phase: f.phase,
+      modification: f.modification,
+      value: f.value!,
+      uncertainty: f.uncertainty,
+      uncertaintyBasis: f.uncertaintyBasis,
+      method: f.method ?? 'unspecified',
+      standardPressure: f.standardPressure as StandardPressure,
+      source: sourceOf(f),
+    })),
+    heatCapacitySets: heat.map((h): SnapshotHeatCapacitySet => ({
+      revisionId: String(h.revisionId),
+      speciesKey: h.speciesKey,
+      phase: h.phase,
+      modification: h.modification,
+      model: modelFromRanges(h.heatCapacityForm!, rangesByRevision.get(h.revisionId) ?? []),
+      source: sourceOf(h),
+    })),
+    transitions: transitions.map((t) => ({
+      revisionId: String(t.revisionId),
+      speciesKey: t.speciesKey,
+      fromPhase: t.phase,
+      fromModification: t.modification,
+      toPhase: t.toPhase!,
+      toModification: t.toModification,
+      temperature: t.temperature!,
+      deltaH: t.value!,
+      source: sourceOf(t),
+    })),
+  };
+}
