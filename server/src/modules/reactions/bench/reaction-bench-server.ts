@@ -33,7 +33,8 @@ server.use(app);
 const listener = server.listen(0, '127.0.0.1', () => {
   process.send?.({ port: (listener.address() as AddressInfo).port });
 });
+// The benchmark is done: leave at once (open keep-alive sockets would hold the process).
 process.on('disconnect', () => {
   listener.close();
-  void database.pool.end();
+  void database.pool.end().finally(() => process.exit(0));
 });

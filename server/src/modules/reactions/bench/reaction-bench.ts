@@ -4,7 +4,9 @@
  *  1. a batch of 10,000 reactions in process, on the starter release's snapshot;
  *  2. the same batch over HTTP, JSON both ways;
  *  3. GET /api/v1/reaction-enthalpy requests/s ÷ a bare JSON route's requests/s, both on one
- *     server process in this run (autocannon).
+ *     server process in this run (autocannon); and the same route answered 304 from its ETag,
+ *     which shows what the application's middleware alone costs.
+ * BENCH_SECONDS (default 5) sets each autocannon run's length.
  */
 import { fork } from 'node:child_process';
 import path from 'node:path';
@@ -105,7 +107,14 @@ async function main(): Promise<void> {
   if (!process.env['DATABASE_URL']) return;
 
   const server = fork(path.join(__dirname, 'reaction-bench-server.ts'), {
-    execArgv: ['--import', 'tsx'],
+    execArgv: [
+      '--import',
+      'tsx',
+      // BENCH_CPU_PROF=<dir>: a CPU profile of the server, to see where its time goes.
+      ...(process.env['BENCH_CPU_PROF']
+        ? ['--cpu-prof', `--cpu-prof-dir=${process.env['BENCH_CPU_PROF']}`]
+        : []),
+    ],
     stdio: 'inherit',
   });
   try {
@@ -131,8 +140,10 @@ async function main(): Promise<void> {
       `ratio (${CONNECTIONS} connections, ${SECONDS} s each):          ${(computed / bare).toFixed(2)}  (target ≥ 0.8)`,
     );
   } finally {
+    const exited = new Promise((resolve) => server.once('exit', resolve));
     server.disconnect();
-    server.kill();
+    await Promise.race([exited, new Promise((resolve) => setTimeout(resolve, 5000))]);
+    if (server.exitCode === null) server.kill();
   }
 }
 
