@@ -4,6 +4,8 @@ import {
   ReactionAnswer,
   ReactionTerm,
 } from '../../server/src/modules/reactions/reactions-schemas';
+import { computeReaction } from '../../server/src/modules/reactions/reaction-answer';
+import { starterSnapshot } from '../../server/src/modules/reactions/testing/starter-snapshot';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 const URL = '/api/v1/reaction-enthalpy';
@@ -100,6 +102,30 @@ describe('reaction-enthalpy API on the starter release', () => {
         expect(g.body).toEqual(p.body);
       }
     });
+  });
+
+  it('answers from the database exactly as from the starter data files', async () => {
+    // The published-value checks (tests/reference/reactions-published.test.ts) run on the files;
+    // this proves release 2026.1 as stored gives the very same numbers.
+    const files = starterSnapshot();
+    for (const [equation, temperatureK] of [
+      ['CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)', 298.15],
+      ['C8H18(l) + 25/2 O2(g) -> 8 CO2(g) + 9 H2O(l)', 298.15],
+      ['CaCO3(cr,calcite) -> CaO(cr) + CO2(g)', 298.15],
+      ['4 NH3(g) + 5 O2(g) -> 4 NO(g) + 6 H2O(g)', 298.15],
+      ['C(cr,graphite) -> C(cr,diamond)', 298.15],
+      ['Na+(aq) + Cl-(aq) -> NaCl(cr)', 298.15],
+      ['CO2(g) + 4 H2(g) -> CH4(g) + 2 H2O(g)', 1000],
+      ['H2O(l) -> H2O(g)', 373.15],
+    ] as const) {
+      const { body } = await post({ equation, temperatureK }).expect(200);
+      const expected = computeReaction(files, { equation, temperatureK, unit: 'kJ/mol' });
+      expect([equation, body.deltaH, body.uncertainty]).toEqual([
+        equation,
+        expected.deltaH,
+        expected.uncertainty,
+      ]);
+    }
   });
 
   describe("Hess's law through the API", () => {

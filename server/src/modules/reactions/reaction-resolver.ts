@@ -123,7 +123,8 @@ function resolveReference(
   if (!match.reference) return null;
   const symbol = Object.keys(t.species.elements)[0]!;
   const ref = referenceStates[symbol]!;
-  const filled = withPhase(t, phase ?? ref.phase, t.modification ?? ref.modification);
+  // A written alias (orthorhombic) becomes the convention's own label (rhombic).
+  const filled = withPhase(t, phase ?? ref.phase, ref.modification);
   if (match.assumed && filled.id !== t.id) {
     notes.push(`${t.id} read as ${filled.id}, the reference state of ${symbol}`);
   }

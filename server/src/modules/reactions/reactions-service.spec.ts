@@ -214,3 +214,15 @@ describe('reactions service', () => {
     expect(answer.results[3]).toMatchObject({ deltaH: single.deltaH, temperatureK: 350 });
   });
 });
+
+describe('elements in their reference state', () => {
+  it('reads a modification alias as the convention’s label and finds the release’s row', () => {
+    const a = at('S(cr,orthorhombic) + O2(g) -> SO2(g)');
+    expect(a.terms[0]).toMatchObject({
+      species: 'sulfur',
+      modification: 'rhombic',
+      referenceState: true,
+      deltaFH: 0,
+    });
+  });
+});
