@@ -36,6 +36,8 @@ export interface ReactionRequestOn {
   readonly equation: string;
   readonly temperatureK: number;
   readonly unit: ReactionUnitName;
+  /** Fuzzy suggestions for unknown species (default true). */
+  readonly suggest?: boolean;
 }
 
 type Answer = Omit<ReactionEnthalpyAnswer, 'caution'>;
@@ -59,20 +61,20 @@ interface Plan {
 const PLAN_LIMIT = 5000;
 const plans = new WeakMap<ReleaseSnapshot, Map<string, Plan>>();
 
-function planFor(snap: ReleaseSnapshot, text: string): Plan {
+function planFor(snap: ReleaseSnapshot, text: string, suggest: boolean): Plan {
   let cache = plans.get(snap);
   if (!cache) plans.set(snap, (cache = new Map()));
   let plan = cache.get(text);
   if (!plan) {
-    plan = makePlan(snap, text);
+    plan = makePlan(snap, text, suggest);
     if (cache.size >= PLAN_LIMIT) cache.clear();
     cache.set(text, plan);
   }
   return plan;
 }
 
-function makePlan(snap: ReleaseSnapshot, text: string): Plan {
-  const resolution = resolveEquation(snap, parseEquation(text));
+function makePlan(snap: ReleaseSnapshot, text: string, suggest: boolean): Plan {
+  const resolution = resolveEquation(snap, parseEquation(text), suggest);
   checkBalanced(resolution);
   const values = new Map<Term, FormationValue>();
   const statics = new Map<Term, StaticTerm>();
@@ -106,7 +108,7 @@ function makePlan(snap: ReleaseSnapshot, text: string): Plan {
  * (and Kirchhoff's law away from 298.15 K) in the engine. Throws ThermoError or AppError.
  */
 export function computeReaction(snap: ReleaseSnapshot, req: ReactionRequestOn): Answer {
-  const plan = planFor(snap, req.equation);
+  const plan = planFor(snap, req.equation, req.suggest ?? true);
   return req.temperatureK === STANDARD_TEMPERATURE
     ? atStandard(snap, plan, req)
     : atTemperature(snap, plan, req);

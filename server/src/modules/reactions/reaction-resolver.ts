@@ -251,8 +251,11 @@ export function suggestSpecies(
     .map(({ item }) => ({ term, species: item.key, name: item.name, formula: item.formula }));
 }
 
-/** Resolves every term, or throws the first kind of problem found, naming every term it affects. */
-export function resolveEquation(snap: ReleaseSnapshot, eq: Equation): Resolution {
+/**
+ * Resolves every term, or throws the first kind of problem found, naming every term it affects.
+ * `suggest: false` skips the fuzzy search for unknown species (a batch spends it on a few items).
+ */
+export function resolveEquation(snap: ReleaseSnapshot, eq: Equation, suggest = true): Resolution {
   const notes: string[] = [];
   const byTerm = new Map<Term, ResolvedTerm>();
   const problems: Problem[] = [];
@@ -270,7 +273,7 @@ export function resolveEquation(snap: ReleaseSnapshot, eq: Equation): Resolution
     });
   const reactants = side(eq.reactants);
   const products = side(eq.products);
-  if (problems.length > 0) throw problemError(snap, problems);
+  if (problems.length > 0) throw problemError(snap, problems, suggest);
   const composition = (t: Term) => byTerm.get(t)!.composition;
   return {
     equation: { reactants, products },
@@ -283,10 +286,12 @@ export function resolveEquation(snap: ReleaseSnapshot, eq: Equation): Resolution
   };
 }
 
-function problemError(snap: ReleaseSnapshot, problems: Problem[]): AppError {
+function problemError(snap: ReleaseSnapshot, problems: Problem[], suggest: boolean): AppError {
   const unknown = problems.filter((p) => p.kind === 'unknown');
   if (unknown.length > 0) {
-    const suggestions = unknown.flatMap((p) => suggestSpecies(snap, p.term, p.query));
+    const suggestions = suggest
+      ? unknown.flatMap((p) => suggestSpecies(snap, p.term, p.query))
+      : [];
     const hint =
       suggestions.length > 0
         ? ` (did you mean ${[...new Set(suggestions.map((s) => s.name))].slice(0, 3).join(', ')}?)`

@@ -1,7 +1,7 @@
 import { AppError } from '../../lib/app-error';
 import { isThermoError } from '../../thermo';
 import { computeReaction, SAFETY_CAUTION } from './reaction-answer';
-import { createReactionsService } from './reactions-service';
+import { BATCH_SUGGESTIONS, createReactionsService } from './reactions-service';
 import { starterSnapshot } from './testing/starter-snapshot';
 
 // Computed on the starter dataset (imports/starter) read straight from its files; the figures
@@ -224,5 +224,22 @@ describe('elements in their reference state', () => {
       referenceState: true,
       deltaFH: 0,
     });
+  });
+});
+
+describe('batch cost bounds', () => {
+  const service = createReactionsService(async () => snap);
+
+  it('offers fuzzy suggestions for the first failures only', () => {
+    const reactions = Array.from({ length: 60 }, (_, i) => ({
+      equation: `[methan-${i}](g) + 2 O2(g) -> CO2(g) + 2 H2O(l)`,
+    }));
+    const answer = service.batch(snap, { unit: 'kJ/mol', reactions });
+    const counts = answer.results.map((r) =>
+      'error' in r ? (r.error as { suggestions?: unknown[] }).suggestions?.length : -1,
+    );
+    expect(answer.errors).toBe(60);
+    expect(counts.slice(0, BATCH_SUGGESTIONS).every((n) => n! > 0)).toBe(true);
+    expect(counts.slice(BATCH_SUGGESTIONS)).toEqual(Array(60 - BATCH_SUGGESTIONS).fill(0));
   });
 });

@@ -25,6 +25,9 @@ export interface ReactionsService {
   batch(snap: ReleaseSnapshot, input: Omit<BatchInput, 'release'>): ReactionBatchAnswer;
 }
 
+/** Items of one batch that get fuzzy suggestions for unknown species. */
+export const BATCH_SUGGESTIONS = 50;
+
 export function createReactionsService(snapshots: SnapshotSource): ReactionsService {
   return {
     async release(version) {
@@ -41,6 +44,8 @@ export function createReactionsService(snapshots: SnapshotSource): ReactionsServ
     },
     batch(snap, input) {
       let errors = 0;
+      // Fuzzy search costs far more than a reaction: a batch offers it for its first failures only.
+      let suggestionsLeft = BATCH_SUGGESTIONS;
       const results = input.reactions.map((reaction, index): BatchItem => {
         const id = reaction.id ?? null;
         try {
@@ -48,6 +53,7 @@ export function createReactionsService(snapshots: SnapshotSource): ReactionsServ
             equation: reaction.equation,
             temperatureK: reaction.temperatureK ?? 298.15,
             unit: input.unit,
+            suggest: suggestionsLeft > 0,
           });
           const item: BatchItemResult = {
             index,
@@ -64,6 +70,7 @@ export function createReactionsService(snapshots: SnapshotSource): ReactionsServ
           return item;
         } catch (err) {
           errors++;
+          suggestionsLeft--;
           return { index, id, error: errorBody(err) };
         }
       });
