@@ -88,7 +88,18 @@ describe('Calculate → Hess combination in the browser', () => {
     await field('Step 2 ΔH').fill('-283.5');
     await page.getByText(/Out of date: the inputs changed/).waitFor();
     await page.getByRole('button', { name: 'Clear' }).click();
+    await expect(field('Target equation').inputValue()).resolves.toBe('');
     await page.getByRole('heading', { name: 'Result' }).waitFor({ state: 'detached' });
+
+    // Keyboard focus is clearly outlined, also on the filled Calculate button.
+    await page.getByRole('button', { name: 'Clear' }).focus();
+    await page.keyboard.press('Tab');
+    await expect(
+      page.evaluate<string>(
+        `(() => { const e = document.activeElement, s = getComputedStyle(e);
+          return [e.textContent.trim(), s.outlineStyle, s.outlineWidth].join('|'); })()`,
+      ),
+    ).resolves.toMatch(/Calculate\|solid\|3px/);
 
     // The link reproduces the calculation from the URL alone.
     await page.goto(link!);

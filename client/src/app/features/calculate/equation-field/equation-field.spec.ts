@@ -116,6 +116,14 @@ describe('EquationField', () => {
     expect(hintText()).toContain('Not balanced: charge -1');
   });
 
+  it('shows a hint the server adds to its reading, e.g. for Fe2+', async () => {
+    await typeAndAnswer('Fe2+(aq) -> Fe2+(aq)', {
+      ...parsed({ normalized: 'Fe2+(aq) -> Fe2+(aq)' }),
+      hints: ["'Fe2+' reads as Fe₂ with charge +1: did you mean 'Fe^2+'?"],
+    } as ParsedEquation);
+    expect(hintText()).toContain("did you mean 'Fe^2+'?");
+  });
+
   it('says so when the balance of a registry-key term could not be counted', async () => {
     await typeAndAnswer(
       '[2-methylpropane](g) -> [butane](g)',

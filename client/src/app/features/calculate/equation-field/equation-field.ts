@@ -72,6 +72,21 @@ export class EquationField {
     return parts.join(', ');
   });
 
+  /**
+   * Readings worth a second look that the server adds to an answer, e.g. "did you mean Fe^2+?"
+   * for `Fe2+` (read as Fe₂ with charge +1).
+   */
+  protected readonly hints = computed(() => {
+    const check = this.check();
+    if (!('parsed' in check)) return [];
+    const hints: unknown = (check.parsed as { hints?: unknown }).hints;
+    return Array.isArray(hints)
+      ? hints
+          .map((h) => (typeof h === 'string' ? h : (h as { message?: unknown })?.message))
+          .filter((h): h is string => typeof h === 'string')
+      : [];
+  });
+
   /** The checked text split around the character at fault, to highlight it. */
   protected readonly fault = computed(() => {
     const check = this.check();

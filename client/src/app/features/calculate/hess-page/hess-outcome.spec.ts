@@ -24,6 +24,8 @@ describe('Hess outcome words and numbers', () => {
       field: 'steps[2].equation',
     });
     expect(failure(error).message).toBe('step 3 is not balanced');
+    const target = new ApiError(400, 'parse_error', "target: expected '->'", { field: 'target' });
+    expect(failure(target).message).toBe("target: expected '->'");
   });
 
   it('quotes CSV cells that hold commas', () => {

@@ -144,7 +144,8 @@ export function failure(error: unknown): { title: string; message: string } {
     const position = error.details['position'];
     message = withoutPosition(message);
     if (typeof position === 'number') message += ` (at character ${position + 1})`;
-    if (where && !/\bstep \d/i.test(message)) message = `${where}: ${message}`;
+    // The server may name the place itself ("step 2 ΔH: …", "target: …"): say it once.
+    if (where && !/\bstep \d|^target\b/i.test(message)) message = `${where}: ${message}`;
   }
   switch (code) {
     case 'no_combination':
