@@ -197,7 +197,9 @@ function resolveTerm(
         formula: e.species.formula,
         phase: e.phase,
         modification: e.modification,
-        write: keyTerm(e),
+        // One species in several phases: its formula with a phase is enough; isomers need keys.
+        write:
+          list.length === 1 ? speciesPhaseId(written.species, e.phase, e.modification) : keyTerm(e),
       })),
     };
   }

@@ -243,3 +243,14 @@ describe('batch cost bounds', () => {
     expect(counts.slice(BATCH_SUGGESTIONS)).toEqual(Array(60 - BATCH_SUGGESTIONS).fill(0));
   });
 });
+
+describe('ambiguity', () => {
+  it('offers the formula with a phase when one species has several phases', () => {
+    const err = failure(() => at('H2O2 -> H2O2(g)'));
+    expect(err.code).toBe('ambiguous_species');
+    expect((err.details['candidates'] as { write: string }[]).map((c) => c.write)).toEqual([
+      'H2O2(l)',
+      'H2O2(g)',
+    ]);
+  });
+});
