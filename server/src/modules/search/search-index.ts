@@ -17,7 +17,7 @@ const FUSE_OPTIONS: IFuseOptions<SearchDocument> = {
   ],
   includeScore: true,
   ignoreLocation: true,
-  threshold: 0.34,
+  threshold: 0.45,
   minMatchCharLength: 2,
 };
 
