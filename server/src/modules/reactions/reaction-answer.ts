@@ -96,7 +96,11 @@ function makePlan(snap: ReleaseSnapshot, text: string, suggest: boolean): Plan {
     resolution,
     equation: same ? built : resolution.equation,
     printed: printEquation(resolution.equation),
-    assumptions: Object.freeze([...resolution.assumptions, ...pressureNotes(resolution)]),
+    assumptions: Object.freeze([
+      ...resolution.assumptions,
+      ...pressureNotes(resolution),
+      ...uncertaintyNotes(resolution),
+    ]),
     values,
     lookup: (t) => values.get(t),
     statics,
@@ -294,6 +298,18 @@ function pressureNotes(r: Resolution): string[] {
     ? []
     : [
         `ΔfH° of ${atm.map((t) => t.term.id).join(', ')} is on the older 1 atm standard pressure (the rest on 1 bar); the difference is negligible for enthalpies of condensed phases and ideal gases`,
+      ];
+}
+
+/** Why the answer's uncertainty is null: the terms whose value states none. */
+function uncertaintyNotes(r: Resolution): string[] {
+  const without = [...r.byTerm.values()].filter(
+    (t) => !t.referenceState && t.entry?.formation?.uncertaintyJoules === null,
+  );
+  return without.length === 0
+    ? []
+    : [
+        `no combined uncertainty: the release states none for ΔfH° of ${without.map((t) => t.term.id).join(', ')}`,
       ];
 }
 
