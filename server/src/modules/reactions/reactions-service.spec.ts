@@ -170,6 +170,18 @@ describe('reaction enthalpy on a release snapshot', () => {
     expect(a.assumptions.at(-1)).toMatch(/Kirchhoff/);
   });
 
+  it('going below a transition needs the heat capacity of the phase beyond it', () => {
+    // Liquid water cooled under 273.15 K freezes; the starter data has no heat capacity of ice.
+    const err = failure(() => at('H2O(l) -> H2O(g)', 260));
+    expect(err.code).toBe('missing_data');
+    expect(err.details['needs']).toEqual([
+      {
+        species: 'H2O(l)',
+        needs: expect.stringMatching(/phase cr beyond its transition at 273.15 K/),
+      },
+    ]);
+  });
+
   it('reports parse errors with their position', () => {
     const err = failure(() => at('CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l'));
     expect(err.code).toBe('parse_error');
