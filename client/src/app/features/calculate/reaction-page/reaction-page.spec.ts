@@ -148,7 +148,7 @@ describe('ReactionPage', () => {
     await harness.fixture.whenStable();
 
     expect(input('Equation').value).toBe(EQUATION);
-    expect(text('.total-value')).toBe('-890.6 ± 0.42 kJ/mol');
+    expect(text('.total-value')).toBe('−890.60 ± 0.42 kJ/mol');
     expect(text('.character')).toBe('exothermic');
     expect(text('.release')).toBe('2026.1');
     expect(text('.meta')).toContain('root sum of squares');

@@ -1,7 +1,7 @@
 import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 
-import { STRUCTURE_DRAWER, StructurePicture, svgDataUrl } from './structure-picture';
+import { displayWidth, STRUCTURE_DRAWER, StructurePicture, svgDataUrl } from './structure-picture';
 
 @Component({
   imports: [StructurePicture],
@@ -53,5 +53,14 @@ describe('StructurePicture', () => {
     const url = svgDataUrl('<svg><text>#1 & 50%</text></svg>');
     expect(url.startsWith('data:image/svg+xml;charset=utf-8,')).toBe(true);
     expect(decodeURIComponent(url.split(',')[1])).toBe('<svg><text>#1 & 50%</text></svg>');
+  });
+
+  it('enlarges small drawings up to 2.5× and fits large ones into the box', () => {
+    const svg = (w: number, h: number) =>
+      `<svg id="s" xmlns="http://www.w3.org/2000/svg" width="${w}px" height="${h}px" viewBox="0 0 ${w} ${h}">`;
+    expect(displayWidth(svg(57, 45))).toBe(143);
+    expect(displayWidth(svg(174, 41))).toBe(280);
+    expect(displayWidth(svg(100, 360))).toBe(50);
+    expect(displayWidth('<svg/>')).toBeNull();
   });
 });

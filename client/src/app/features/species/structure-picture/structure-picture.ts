@@ -21,13 +21,18 @@ export const STRUCTURE_DRAWER = new InjectionToken<StructureDrawer>('STRUCTURE_D
   factory: () => async (smiles) => {
     const { Molecule } = await import('openchemlib');
     const molecule = Molecule.fromSmiles(smiles);
-    return molecule.toSVG(320, 220, 'structure', { suppressChiralText: true });
+    // Cropped to the molecule; the picture is then scaled to the box, small molecules too.
+    return molecule.toSVG(320, 220, 'structure', {
+      suppressChiralText: true,
+      autoCrop: true,
+      autoCropMargin: 12,
+    });
   },
 });
 
 type Picture =
   | { readonly state: 'drawing' }
-  | { readonly state: 'drawn'; readonly src: string }
+  | { readonly state: 'drawn'; readonly src: string; readonly width: number | null }
   | { readonly state: 'failed' };
 
 /** A structure picture drawn in the browser from SMILES; the SVG is shown as an image. */
@@ -37,7 +42,11 @@ type Picture =
     @let p = picture();
     @switch (p.state) {
       @case ('drawn') {
-        <img [src]="p.src" [alt]="'Structure of ' + name() + ' (' + smiles() + ')'" />
+        <img
+          [src]="p.src"
+          [style.width.px]="p.width"
+          [alt]="'Structure of ' + name() + ' (' + smiles() + ')'"
+        />
       }
       @case ('failed') {
         <p class="note">No picture: the SMILES {{ smiles() }} could not be drawn.</p>
@@ -87,7 +96,9 @@ export class StructurePicture {
       this.picture.set({ state: 'drawing' });
       this.draw(smiles).then(
         (svg) => {
-          if (current) this.picture.set({ state: 'drawn', src: svgDataUrl(svg) });
+          if (current) {
+            this.picture.set({ state: 'drawn', src: svgDataUrl(svg), width: displayWidth(svg) });
+          }
         },
         () => {
           if (current) this.picture.set({ state: 'failed' });
@@ -95,6 +106,18 @@ export class StructurePicture {
       );
     });
   }
+}
+
+/**
+ * How wide to show a cropped drawing: enlarged up to 2.5× (a lone atom stays a modest label),
+ * within 280 × 180 px. Null when the SVG states no size.
+ */
+export function displayWidth(svg: string): number | null {
+  const size = /<svg[^>]*\swidth="([\d.]+)(?:px)?"[^>]*\sheight="([\d.]+)(?:px)?"/.exec(svg);
+  if (!size) return null;
+  const [width, height] = [Number(size[1]), Number(size[2])];
+  if (!(width > 0 && height > 0)) return null;
+  return Math.round(width * Math.min(2.5, 280 / width, 180 / height));
 }
 
 /** An SVG document as a `data:` address (allowed by the policy's `img-src`). */

@@ -20,7 +20,7 @@ import { RouterLink } from '@angular/router';
 
 import type { ReactionEnthalpyAnswer } from '@contracts/reactions/reactions-schemas';
 import { ChemText } from '../../../../shared/chem-text';
-import { formatEnergy, formatFactor, formatValue } from '../../../../shared/energy-unit';
+import { formatFactor } from '../../../../shared/energy-unit';
 import { phaseName } from '../../../../shared/phase-name';
 import { curlCommand, type ReactionQuery, STANDARD_TEMPERATURE_K } from '../reaction-query';
 
@@ -40,6 +40,27 @@ interface TermRow {
   /** Where the heat-capacity data behind the increment come from, at T ≠ 298.15 K. */
   readonly heatCapacity: string | null;
   readonly notes: readonly string[];
+}
+
+const spreadFormat = new Intl.NumberFormat('en-US', {
+  maximumSignificantDigits: 2,
+  useGrouping: false,
+});
+
+/**
+ * An energy in the answer's unit at one precision for the whole card (2 decimals, whole J/mol),
+ * so trailing zeros stay (`18.00`), with a real minus sign and never `−0.00`.
+ */
+export function energyText(value: number, unit: string): string {
+  const decimals = unit === 'J/mol' ? 0 : 2;
+  const text = (Math.abs(value) < 0.5 * 10 ** -decimals ? 0 : value).toFixed(decimals);
+  return text.startsWith('-') ? `\u2212${text.slice(1)}` : text;
+}
+
+/** `−802.29 ± 0.42 kJ/mol`; the ± to two significant digits, left out when unknown. */
+export function energyWithSpread(value: number, unit: string, spread: number | null): string {
+  const plusMinus = spread === null ? '' : ` ± ${spreadFormat.format(spread)}`;
+  return `${energyText(value, unit)}${plusMinus} ${unit}`;
 }
 
 /** What each uncertainty basis code means, in the words the result card uses. */
@@ -110,12 +131,14 @@ export class ReactionResult {
 
   protected readonly total = computed(() => {
     const answer = this.answer();
-    return formatEnergy(answer.deltaH, answer.unit, answer.uncertainty);
+    return energyWithSpread(answer.deltaH, answer.unit, answer.uncertainty);
   });
 
   protected readonly standardTotal = computed(() => {
     const answer = this.answer();
-    return answer.deltaH298 === undefined ? '' : `${formatValue(answer.deltaH298)} ${answer.unit}`;
+    return answer.deltaH298 === undefined
+      ? ''
+      : `${energyText(answer.deltaH298, answer.unit)} ${answer.unit}`;
   });
 
   protected readonly character = computed(() => {
@@ -135,8 +158,9 @@ export class ReactionResult {
       phase: phaseName(term.phase, term.modification),
       side: term.coefficient < 0 ? 'reactant' : 'product',
       coefficient: formatFactor(term.coefficient),
-      deltaFH: formatEnergy(term.deltaFH, unit, term.uncertainty),
-      increment: term.enthalpyIncrement === undefined ? '' : formatValue(term.enthalpyIncrement),
+      deltaFH: energyWithSpread(term.deltaFH, unit, term.uncertainty),
+      increment:
+        term.enthalpyIncrement === undefined ? '' : energyText(term.enthalpyIncrement, unit),
       revision: term.revisionId,
       citation: term.source?.citation ?? null,
       doi: term.source?.doi ?? null,
@@ -148,7 +172,7 @@ export class ReactionResult {
         ...(term.transitions ?? []).map(
           (t) =>
             `Crosses a transition at ${t.temperature} K${t.phase ? ` to ${phaseName(t.phase)}` : ''} ` +
-            `(ΔtrsH ${formatValue(t.deltaH)} ${unit}).`,
+            `(ΔtrsH ${energyText(t.deltaH, unit)} ${unit}).`,
         ),
       ],
     }));
