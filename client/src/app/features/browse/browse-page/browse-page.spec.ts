@@ -203,6 +203,28 @@ describe('BrowsePage', () => {
     backend.expectNone('/api/v1/search');
   });
 
+  it('searches again in a newly chosen release', async () => {
+    await open('/browse?release=2026.1');
+    tableRequest().flush(page());
+    await typeSearch('water');
+    const first = backend.expectOne((r) => r.url === '/api/v1/search');
+    expect(first.request.params.get('release')).toBe('2026.1');
+    first.flush({ release: '2026.1', query: 'water', formula: null, results: [] });
+
+    const loader = TestbedHarnessEnvironment.loader(harness.fixture);
+    const picker = await loader.getHarness(
+      MatSelectHarness.with({ selector: '[aria-label="Release"]' }),
+    );
+    await picker.open();
+    await picker.clickOptions({ text: /^Newest/ });
+    await harness.fixture.whenStable();
+
+    const again = backend.expectOne((r) => r.url === '/api/v1/search');
+    expect(again.request.params.get('q')).toBe('water');
+    expect(again.request.params.get('release')).toBe('latest');
+    tableRequest();
+  });
+
   it('keeps the chosen release in the URL and reloads the table for it', async () => {
     await open('/browse?release=2026.1');
     tableRequest().flush(page());

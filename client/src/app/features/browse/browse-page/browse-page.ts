@@ -32,6 +32,7 @@ import {
 import { RouterLink } from '@angular/router';
 import {
   catchError,
+  combineLatest,
   debounceTime,
   distinctUntilChanged,
   map,
@@ -114,15 +115,20 @@ export class BrowsePage {
   protected readonly release = new FormControl(this.context.pinned(), { nonNullable: true });
   protected readonly phase = new FormControl<string | null>(null);
 
+  /** Results for the typed text in the pinned release; a new release searches again. */
   protected readonly search = toSignal(
-    this.query.valueChanges.pipe(
-      map((q) => q.trim()),
-      debounceTime(SEARCH_DEBOUNCE_MS),
-      distinctUntilChanged(),
-      switchMap((q) =>
+    combineLatest([
+      this.query.valueChanges.pipe(
+        map((q) => q.trim()),
+        debounceTime(SEARCH_DEBOUNCE_MS),
+        distinctUntilChanged(),
+      ),
+      toObservable(this.context.pinned),
+    ]).pipe(
+      switchMap(([q, release]) =>
         q === ''
           ? of<Search>({ state: 'idle' })
-          : this.api.search(q, this.context.pinned()).pipe(
+          : this.api.search(q, release).pipe(
               map((answer): Search => ({ state: 'found', q, answer })),
               catchError((error: unknown) =>
                 of<Search>({ state: 'failed', q, message: readableMessage(error) }),
