@@ -1,4 +1,4 @@
-import { ApiError, readableMessage } from '../../../core/api-error';
+import { ApiError, rateLimitMessage, readableMessage } from '../../../core/api-error';
 import type { ReactionEnthalpyAnswer } from '@contracts/reactions/reactions-schemas';
 import type { ReactionQuery } from './reaction-query';
 
@@ -27,6 +27,14 @@ export const IDLE: ReactionOutcome = { kind: 'idle' };
 
 /** The server's refusal as a title (what kind of problem) and its own message (which term). */
 export function describeFailure(error: unknown): ReactionProblem {
+  if (error instanceof ApiError && error.rateLimited) {
+    return {
+      title: 'Please wait a moment.',
+      message: rateLimitMessage(error.retryAfter),
+      suggestion: null,
+      alternatives: [],
+    };
+  }
   const message = readableMessage(error);
   const details = error instanceof ApiError ? error.details : {};
   const code = error instanceof ApiError ? error.code : null;

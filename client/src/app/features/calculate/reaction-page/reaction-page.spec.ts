@@ -252,4 +252,18 @@ describe('ReactionPage', () => {
     // The refusal belonged to the old text: it gives way to the out-of-date note.
     expect(element().querySelector('.failure')).toBeNull();
   });
+
+  it('answers a 429 with one calm message and the wait, not as a failed calculation', async () => {
+    await open(link({ equation: EQUATION, release: '2026.1' }));
+    backend
+      .expectOne((r) => r.url === '/api/v1/reaction-enthalpy')
+      .flush(
+        { error: { code: 'rate_limited', message: 'Too many requests' } },
+        { status: 429, statusText: 'Too Many Requests', headers: { 'Retry-After': '30' } },
+      );
+    await harness.fixture.whenStable();
+    expect(text('.failure-title')).toBe('Please wait a moment.');
+    expect(text('.failure-message')).toContain('Try again in 30 seconds');
+    expect(element().querySelectorAll('.failure')).toHaveLength(1);
+  });
 });

@@ -5,7 +5,7 @@ import type { ChartConfiguration } from 'chart.js';
 import { BaseChartDirective, provideCharts, withDefaultRegisterables } from 'ng2-charts';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
-import { readableMessage } from '../../../../core/api-error';
+import { ApiError, rateLimitMessage, readableMessage } from '../../../../core/api-error';
 import { formatValue } from '../../../../shared/energy-unit';
 import { ReactionApi } from '../reaction-api';
 import type { ReactionQuery } from '../reaction-query';
@@ -113,7 +113,10 @@ export class ReactionCurve {
             catchError((error: unknown) =>
               of<Curve>({
                 state: 'none',
-                message: `The curve could not be drawn: ${readableMessage(error)}`,
+                message:
+                  error instanceof ApiError && error.rateLimited
+                    ? `The curve is not drawn now. ${rateLimitMessage(error.retryAfter)}`
+                    : `The curve could not be drawn: ${readableMessage(error)}`,
               }),
             ),
             startWith<Curve>({ state: 'loading' }),
