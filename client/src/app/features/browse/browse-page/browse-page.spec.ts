@@ -143,6 +143,7 @@ describe('BrowsePage', () => {
     const phase = await loader.getHarness(
       MatSelectHarness.with({ selector: '[aria-label="Phase"]' }),
     );
+    expect(await phase.getValueText()).toBe('All phases');
     await phase.open();
     await phase.clickOptions({ text: 'gas' });
     request = tableRequest();

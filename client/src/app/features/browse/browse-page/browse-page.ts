@@ -113,7 +113,8 @@ export class BrowsePage {
 
   protected readonly query = new FormControl('', { nonNullable: true });
   protected readonly release = new FormControl(this.context.pinned(), { nonNullable: true });
-  protected readonly phase = new FormControl<string | null>(null);
+  /** '' stands for every phase (a select shows no label for null). */
+  protected readonly phase = new FormControl('', { nonNullable: true });
 
   /** Results for the typed text in the pinned release; a new release searches again. */
   protected readonly search = toSignal(
@@ -143,7 +144,7 @@ export class BrowsePage {
   protected readonly sort = signal<Sort>({ active: 'name', direction: 'asc' });
   protected readonly pageIndex = signal(0);
   protected readonly pageSize = signal(25);
-  private readonly phaseFilter = toSignal(this.phase.valueChanges, { initialValue: null });
+  private readonly phaseFilter = toSignal(this.phase.valueChanges, { initialValue: '' });
 
   private readonly request = computed<SpeciesTableRequest>(() => {
     const sort = this.sort();
@@ -151,7 +152,7 @@ export class BrowsePage {
       release: this.context.pinned(),
       page: this.pageIndex() + 1,
       pageSize: this.pageSize(),
-      phase: this.phaseFilter(),
+      phase: this.phaseFilter() || null,
       sort: sort.direction === '' ? 'name' : (sort.active as SpeciesTableRequest['sort']),
       order: sort.direction === 'desc' ? 'desc' : 'asc',
     };
