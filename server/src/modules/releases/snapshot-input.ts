@@ -5,6 +5,7 @@ import type {
   SnapshotHeatCapacitySet,
   SnapshotInput,
   SnapshotSource,
+  SnapshotSpecies,
   StandardPressure,
 } from './release-snapshot';
 
@@ -55,6 +56,29 @@ export function modelFromRanges(
   };
 }
 
+interface SpeciesColumns {
+  speciesKey: string;
+  speciesName: string;
+  speciesFormula: string;
+  speciesCharge: number;
+  speciesSynonyms: string[];
+}
+
+function speciesOfRows(rows: readonly SpeciesColumns[]): SnapshotSpecies[] {
+  const byKey = new Map<string, SnapshotSpecies>();
+  for (const r of rows) {
+    if (byKey.has(r.speciesKey)) continue;
+    byKey.set(r.speciesKey, {
+      key: r.speciesKey,
+      name: r.speciesName,
+      formula: r.speciesFormula,
+      charge: r.speciesCharge,
+      synonyms: r.speciesSynonyms,
+    });
+  }
+  return [...byKey.values()];
+}
+
 const sourceOf = (r: {
   sourceId: number;
   citation: string;
@@ -70,16 +94,18 @@ export async function loadSnapshotInput(
   db: Queryable,
   release: { id: number; version: string; publishedAt: Date | null },
 ): Promise<SnapshotInput> {
-  const [speciesRows, formation, heat, transitions] = await Promise.all([
-    releasesRepository.speciesOf(db, release.id),
-    releasesRepository.pinned(db, release.id, 'formation_enthalpy'),
-    releasesRepository.pinned(db, release.id, 'heat_capacity'),
-    releasesRepository.pinned(db, release.id, 'transition'),
-  ]);
-  const ranges = await releasesRepository.rangesOf(
-    db,
-    heat.map((h) => h.revisionId),
-  );
+  const { formation, heat, transitions, ranges } = await db.transaction(async (tx) => {
+    await releasesRepository.preferKeyProbes(tx);
+    // Species come with their rows, so no separate species query is needed.
+    const formation = await releasesRepository.pinned(tx, release.id, 'formation_enthalpy');
+    const heat = await releasesRepository.pinned(tx, release.id, 'heat_capacity');
+    const transitions = await releasesRepository.pinned(tx, release.id, 'transition');
+    const ranges = await releasesRepository.rangesOf(
+      tx,
+      heat.map((h) => h.revisionId),
+    );
+    return { formation, heat, transitions, ranges };
+  });
   const rangesByRevision = new Map<number, RangeRow[]>();
   for (const r of ranges) {
     const list = rangesByRevision.get(r.revisionId);
@@ -89,13 +115,7 @@ export async function loadSnapshotInput(
   return {
     version: release.version,
     publishedAt: release.publishedAt?.toISOString() ?? null,
-    species: speciesRows.map((s) => ({
-      key: s.key,
-      name: s.name,
-      formula: s.formula,
-      charge: s.charge,
-      synonyms: s.synonyms,
-    })),
+    species: speciesOfRows([...formation, ...heat, ...transitions]),
     formationValues: formation.map((f) => ({
       revisionId: String(f.revisionId),
       speciesKey: f.speciesKey,
