@@ -22,6 +22,56 @@ export const THERMO_ERROR_STATUS: Record<ThermoErrorCode, number> = {
 interface BodyParserError {
   type?: string;
   status?: number;
+  charset?: string;
+  encoding?: string;
+}
+
+type IssuePath = readonly PropertyKey[];
+
+/** A field path as programs address it: `steps[2].deltaH`. */
+export function fieldPath(path: IssuePath): string {
+  let out = '';
+  for (const seg of path) {
+    if (typeof seg === 'number') out += `[${seg}]`;
+    else out += (out === '' ? '' : '.') + String(seg);
+  }
+  return out === '' ? 'body' : out;
+}
+
+/** The same place as a person counts on a form: `step 3 deltaH` (list items from 1). */
+function placeForPeople(path: IssuePath): string {
+  const parts: string[] = [];
+  for (const seg of path) {
+    if (typeof seg !== 'number') {
+      parts.push(String(seg));
+      continue;
+    }
+    const list = parts.pop() ?? 'item';
+    const one = /[^s]s$/.test(list) && !list.endsWith('species') ? list.slice(0, -1) : list;
+    parts.push(`${one} ${seg + 1}`);
+  }
+  return parts.join(' ');
+}
+
+function validationBody(err: ZodError): Record<string, unknown> {
+  const issues = err.issues.map((i) => ({
+    path: i.path,
+    field: fieldPath(i.path),
+    message: i.message,
+  }));
+  const message = err.issues
+    .map((i) => {
+      const field = fieldPath(i.path);
+      const place = placeForPeople(i.path);
+      return `${place === '' || place === field ? field : `${place} (${field})`}: ${i.message}`;
+    })
+    .join('; ');
+  return {
+    code: 'validation_error',
+    message,
+    ...(issues.length === 1 ? { field: issues[0]!.field } : {}),
+    issues,
+  };
 }
 
 /** The one place errors become responses: `{"error":{code,message,…}}`, never a stack trace. */
@@ -37,14 +87,7 @@ function toResponse(err: unknown): { status: number; body: Record<string, unknow
     return { status: err.status, body: { code: err.code, message: err.message, ...err.details } };
   }
   if (err instanceof ZodError) {
-    return {
-      status: 400,
-      body: {
-        code: 'validation_error',
-        message: err.issues.map((i) => `${i.path.join('.') || 'body'}: ${i.message}`).join('; '),
-        issues: err.issues.map((i) => ({ path: i.path, message: i.message })),
-      },
-    };
+    return { status: 400, body: validationBody(err) };
   }
   if (err instanceof ThermoError) {
     return {
@@ -63,6 +106,24 @@ function toResponse(err: unknown): { status: number; body: Record<string, unknow
     return {
       status: 413,
       body: { code: 'payload_too_large', message: 'The request body is too large' },
+    };
+  }
+  if (bp?.type === 'charset.unsupported') {
+    return {
+      status: 415,
+      body: {
+        code: 'unsupported_charset',
+        message: `The request body must be JSON in UTF-8; charset "${bp.charset ?? ''}" is not supported`,
+      },
+    };
+  }
+  if (bp?.type === 'encoding.unsupported') {
+    return {
+      status: 415,
+      body: {
+        code: 'unsupported_encoding',
+        message: `The request body's content encoding "${bp.encoding ?? ''}" is not supported; send it uncompressed or gzip`,
+      },
     };
   }
   if (typeof bp?.status === 'number' && bp.status >= 400 && bp.status < 500) {

@@ -20,7 +20,7 @@ export {
   isElementSymbol,
   type AtomicWeight,
 } from './formula/atomic-weights';
-export { parseFormula, type ParsedFormula } from './formula/formula-parser';
+export { parseFormula, exactCounts, type ParsedFormula } from './formula/formula-parser';
 export { hillFormula, hillOrder } from './formula/hill-formula';
 export { molarMass } from './formula/molar-mass';
 export {
@@ -33,6 +33,7 @@ export {
 
 export {
   PHASES,
+  phaseName,
   type Phase,
   type Species,
   type FormulaSpecies,
@@ -42,6 +43,7 @@ export {
   type Side,
 } from './equation/equation-types';
 export { parseEquation, parseTerm, isRegistryKey } from './equation/equation-parser';
+export { notationHints } from './equation/notation-hints';
 export { printEquation, printTerm } from './equation/equation-printer';
 export {
   buildEquation,

@@ -17,6 +17,24 @@ export const ExactNumber = z
   .string()
   .regex(/^-?\d+(\/\d+)?$/, 'is not an exact number such as "-1/2"');
 
+/**
+ * An energy in the request's unit: a JSON number, never text. A string such as "−283,5" is
+ * refused rather than guessed at (a typographic minus or a decimal comma must never change a
+ * value silently); JSON's 1e309 arrives as Infinity and is refused as too large.
+ */
+const energy = (what: string) =>
+  z.number({
+    error: (issue) => {
+      const input = issue.input;
+      if (input === undefined) return `${what} is required`;
+      if (typeof input === 'string')
+        return `${what} must be a JSON number such as -283.5, not text (${JSON.stringify(input.slice(0, 40))})`;
+      if (typeof input === 'number' && !Number.isNaN(input))
+        return `${what} is too large: numbers go up to ±1.8e308`;
+      return `${what} must be a JSON number such as -283.5`;
+    },
+  });
+
 const equationText = z
   .string()
   .trim()
@@ -35,6 +53,8 @@ export const ParsedSpecies = z.object({
   phase: phase.nullable(),
   /** Crystal modification such as "graphite"; null when none is written. */
   modification: z.string().nullable(),
+  /** The phase spelled out for people: "gas", "liquid", "crystal, diamond", "aqueous"; null without a phase. */
+  phaseName: z.string().nullable(),
   /** Exact; negative for reactants. */
   coefficient: ExactNumber,
 });
@@ -52,6 +72,11 @@ export const ParseAnswer = z.object({
   /** A balanced form of the equation, when it is unbalanced and one exists. */
   suggestion: z.string().nullable(),
   species: z.array(ParsedSpecies),
+  /**
+   * Readings that are right by the syntax yet a common slip, as questions for people, e.g.
+   * "did you mean Fe^2+? Fe2+ reads as Fe2 with charge +1". The reading above stands.
+   */
+  hints: z.array(z.string()),
 });
 
 // ---- POST /api/v1/hess/solve ----
@@ -64,8 +89,10 @@ export const HessBody = z
         z
           .object({
             equation: equationText,
-            deltaH: z.number().finite(),
-            uncertainty: z.number().finite().nonnegative().optional(),
+            deltaH: energy('ΔH'),
+            uncertainty: energy('the uncertainty')
+              .nonnegative('the uncertainty cannot be negative')
+              .optional(),
           })
           .strict(),
       )

@@ -22,7 +22,12 @@ describe('autoBalance', () => {
     ['CH4(g) + O2(g) -> CO2(g) + H2O(l)', 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)'],
     ['C3H8(g) + O2(g) -> CO2(g) + H2O(g)', 'C3H8(g) + 5 O2(g) -> 3 CO2(g) + 4 H2O(g)'],
     ['C8H18(l) + O2(g) -> CO2(g) + H2O(l)', '2 C8H18(l) + 25 O2(g) -> 16 CO2(g) + 18 H2O(l)'],
-    ['Al(cr) + O2(g) -> Al2O3(cr,corundum)', '4 Al(cr) + 3 O2(g) -> 2 Al2O3(cr,corundum)'],
+    ['Al(cr) + O2(g) -> Al2O3(cr,corundum)', '4 Al(cr) + 3 O2(g) -> 2 Al2O3(corundum)'],
+    ['Fe(cr) + O2(g) -> Fe0.947O(cr)', '947 Fe(cr) + 500 O2(g) -> 1000 Fe0.947O(cr)'],
+    [
+      'CaSO4·2H2O(cr) -> CaSO4·1/2H2O(cr) + H2O(g)',
+      '2 CaSO4·2H2O(cr) -> 2 CaSO4·1/2H2O(cr) + 3 H2O(g)',
+    ],
     ['1/2 N2(g) + 7 H2(g) -> NH3(g)', 'N2(g) + 3 H2(g) -> 2 NH3(g)'],
     [
       'Fe^3+(aq) + Cu(cr) -> Fe^2+(aq) + Cu^2+(aq)',

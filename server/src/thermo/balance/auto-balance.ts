@@ -5,9 +5,10 @@ import { withCoefficient } from '../equation/equation-builder';
 import { toEquation } from '../equation/equation-input';
 import type { Equation, Term } from '../equation/equation-types';
 import { printEquation } from '../equation/equation-printer';
+import { exactCounts } from '../formula/formula-parser';
 import { hillOrder } from '../formula/hill-formula';
 import { nullSpace } from '../rational/rational-matrix';
-import { frac, toSmallestIntegers } from '../rational/rational';
+import { frac, toSmallestIntegers, ZERO } from '../rational/rational';
 
 /**
  * Balances the equation's species with the smallest positive integer coefficients: the one
@@ -38,8 +39,8 @@ export function autoBalance(input: Equation | string): Equation {
   }
   const rows = hillOrder(symbols).map((symbol) =>
     terms.map((t, j) => {
-      const n = t.species.kind === 'formula' ? (t.species.elements[symbol] ?? 0) : 0;
-      return frac(j < nr ? n : -n);
+      const n = t.species.kind === 'formula' ? (exactCounts(t.species)[symbol] ?? ZERO) : ZERO;
+      return j < nr ? n : n.neg();
     }),
   );
   if (charged) {

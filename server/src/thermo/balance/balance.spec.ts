@@ -72,7 +72,8 @@ describe('assertBalanced', () => {
       expect(e.code).toBe('unbalanced');
       expect(e.details).toEqual({ step: 2, imbalance: { O: '1/3' }, charge: '0' });
       expect(e.message).toBe(
-        'step 2: H2(g) + 1/3 O2(g) -> H2O(l) is not balanced (products minus reactants: O: 1/3)',
+        // The `step` detail is a 0-based index; messages count steps from 1.
+        'step 3: H2(g) + 1/3 O2(g) -> H2O(l) is not balanced (products minus reactants: O: 1/3)',
       );
     }
   });
@@ -81,5 +82,29 @@ describe('assertBalanced', () => {
     expect(() => assertBalanced('Fe(cr) -> Fe^3+(aq)')).toThrow(
       expect.objectContaining({ code: 'unbalanced', details: { imbalance: {}, charge: '3' } }),
     );
+  });
+});
+
+describe('balance with non-integer counts', () => {
+  it('balances the gypsum dehydration to the hemihydrate exactly, either spelling', () => {
+    for (const text of [
+      'CaSO4·2H2O(cr) -> CaSO4·1/2H2O(cr) + 3/2 H2O(g)',
+      'CaSO4·2H2O(cr) -> CaSO4·0.5H2O(cr) + 1.5 H2O(g)',
+    ]) {
+      expect(checkBalance(parseEquation(text)).balanced).toBe(true);
+    }
+    const off = checkBalance(parseEquation('CaSO4·2H2O(cr) -> CaSO4·1/2H2O(cr) + H2O(g)'));
+    expect(off.balanced).toBe(false);
+    expect(
+      Object.fromEntries(Object.entries(off.imbalance).map(([k, v]) => [k, v.toFraction()])),
+    ).toEqual({ H: '-1', O: '-1/2' });
+  });
+
+  it('balances wüstite formation with its exact iron count', () => {
+    expect(checkBalance(parseEquation('0.947 Fe(cr) + 1/2 O2(g) -> Fe0.947O(cr)')).balanced).toBe(
+      true,
+    );
+    const off = checkBalance(parseEquation('Fe(cr) + 1/2 O2(g) -> Fe0.947O(cr)'));
+    expect(off.imbalance['Fe']!.toFraction()).toBe('-53/1000');
   });
 });

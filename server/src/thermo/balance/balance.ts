@@ -3,6 +3,7 @@ import { ThermoError } from '../errors/thermo-error';
 import * as input from '../equation/equation-input';
 import type { Equation, Term } from '../equation/equation-types';
 import { printEquation } from '../equation/equation-printer';
+import { exactCounts } from '../formula/formula-parser';
 import { hillOrder } from '../formula/hill-formula';
 import * as rational from '../rational/rational';
 
@@ -54,6 +55,8 @@ function tallyIntegers(terms: readonly Term[], dir: number, common: number, acc:
       acc.unknown.push(t.species.key);
       continue;
     }
+    // Non-integer counts (Fe0.947O) take the exact path.
+    if (t.species.exact !== undefined) return false;
     const c = t.coefficient;
     const w = (Number(c.n) * common) / Number(c.d);
     if (w > SAFE) return false;
@@ -120,9 +123,9 @@ function tallyFractions(
       continue;
     }
     const nu = dir < 0 ? t.coefficient.neg() : t.coefficient;
-    const els = t.species.elements;
+    const els = exactCounts(t.species);
     for (const symbol in els)
-      totals.set(symbol, (totals.get(symbol) ?? ZERO).add(nu.mul(els[symbol] as number)));
+      totals.set(symbol, (totals.get(symbol) ?? ZERO).add(nu.mul(els[symbol] as Fraction)));
     acc.charge = acc.charge.add(nu.mul(t.species.charge));
   }
 }
@@ -172,7 +175,8 @@ export function assertBalanced(
   const eq = toEquation(input);
   const result = report(eq);
   if (result.balanced === false) {
-    const prefix = typeof context['step'] === 'number' ? `step ${context['step']}: ` : '';
+    // Steps are counted from 1 for people; the `step` detail stays a 0-based index.
+    const prefix = typeof context['step'] === 'number' ? `step ${context['step'] + 1}: ` : '';
     throw new ThermoError(
       'unbalanced',
       `${prefix}${printEquation(eq)} is not balanced (products minus reactants: ${describeImbalance(result)})`,

@@ -5,8 +5,9 @@ import { netEquation, makeTerm } from '../equation/equation-builder';
 import { parseTerm } from '../equation/equation-parser';
 import type { Equation, FormulaSpecies, Term } from '../equation/equation-types';
 import { tableLookup, type FormationLookup, type FormationValue } from './formation-data';
+import { exactCounts } from '../formula/formula-parser';
 import { molarMass } from '../formula/molar-mass';
-import { frac, ONE, sign } from '../rational/rational';
+import { isZero, ONE, sign, ZERO } from '../rational/rational';
 import { reactionEnthalpy, type ReactionEnthalpy } from './reaction-enthalpy';
 
 export interface HeatingValue {
@@ -71,24 +72,25 @@ export function combustionEquation(fuel: Term, water: 'l' | 'g'): Equation {
       },
     );
   }
-  const [c, h, o, n, s] = ['C', 'H', 'O', 'N', 'S'].map((e) => els[e] ?? 0) as [
-    number,
-    number,
-    number,
-    number,
-    number,
+  const exact = exactCounts(fuel.species);
+  const [c, h, o, n, s] = ['C', 'H', 'O', 'N', 'S'].map((e) => exact[e] ?? ZERO) as [
+    Fraction,
+    Fraction,
+    Fraction,
+    Fraction,
+    Fraction,
   ];
-  if (c + h + s === 0)
+  if (isZero(c.add(h).add(s)))
     throw new ThermoError('invalid_input', `${fuel.id} contains nothing to burn`, {
       species: fuel.id,
     });
-  const oxygen = frac(4 * c + h + 4 * s - 2 * o, 4);
+  const oxygen = c.mul(4).add(h).add(s.mul(4)).sub(o.mul(2)).div(4);
   const reactants = [makeTerm(ONE, fuel)];
   const products: Term[] = [];
-  if (c > 0) products.push(makeTerm(frac(c), CO2));
-  if (h > 0) products.push(makeTerm(frac(h, 2), WATER[water]));
-  if (n > 0) products.push(makeTerm(frac(n, 2), N2));
-  if (s > 0) products.push(makeTerm(frac(s), SO2));
+  if (!isZero(c)) products.push(makeTerm(c, CO2));
+  if (!isZero(h)) products.push(makeTerm(h.div(2), WATER[water]));
+  if (!isZero(n)) products.push(makeTerm(n.div(2), N2));
+  if (!isZero(s)) products.push(makeTerm(s, SO2));
   // A fuel richer in oxygen than its products need releases O2.
   if (sign(oxygen) > 0) reactants.push(makeTerm(oxygen, O2));
   else if (sign(oxygen) < 0) products.push(makeTerm(oxygen.neg(), O2));
@@ -129,7 +131,7 @@ export function heatingValues(
   return {
     fuel: fuelTerm,
     molarMass: m,
-    waterPerMol: frac(species.elements['H'] ?? 0, 2),
+    waterPerMol: (exactCounts(species)['H'] ?? ZERO).div(2),
     hhv: value('l'),
     lhv: value('g'),
   };

@@ -62,7 +62,7 @@ describe('solveHess', () => {
 
   it('treats modifications as different columns', () => {
     const err = failure(() => solveHess('C(cr,diamond) + O2(g) -> CO2(g)', [CO2_FORMATION]));
-    expect(err.details['unmatched']).toEqual(['C(cr,diamond)']);
+    expect(err.details['unmatched']).toEqual(['C(diamond)']);
   });
 
   it('lists unused steps', () => {
@@ -149,10 +149,26 @@ describe('solveHess', () => {
         solveHess('C(cr,graphite) + O2(g) -> CO2(g)', [CO2_FORMATION, CO_FORMATION, fictional]),
       );
       expect(err.code).toBe('not_unique');
-      expect(err.details['combination']).toBe('−1×(step 0) + 1×(step 1) + 1×(step 2)');
+      expect(err.details['combination']).toBe('−1×(step 1) + 1×(step 2) + 1×(step 3)');
       expect(err.details['cycleDeltaH']).toBeCloseTo((393.51 - 110.53 - 280) * kJ, 6);
-      expect(err.details['reaction']).toBe('C(cr,graphite) + O2(g) -> CO2(g)');
+      expect(err.details['reaction']).toBe('C(graphite) + O2(g) -> CO2(g)');
       expect(err.message).toContain('inconsistent');
+    });
+
+    it('states the cycle in the unit asked for, and names it', () => {
+      const err = failure(() =>
+        solveHess('C(cr,graphite) + O2(g) -> CO2(g)', [CO2_FORMATION, CO_FORMATION, fictional], {
+          unit: 'kJ/mol',
+        }),
+      );
+      const cycle = 393.51 - 110.53 - 280;
+      expect(err.details['unit']).toBe('kJ/mol');
+      expect(err.details['cycleDeltaH']).toBeCloseTo(cycle, 9);
+      const [one, other] = err.details['deltaHs'] as [number, number];
+      expect(one - other).toBeCloseTo(cycle, 9);
+      expect(Math.abs(one)).toBeLessThan(1000);
+      expect(err.message).toContain(`ΔH = ${Number(cycle.toPrecision(12))} kJ/mol instead of 0`);
+      expect(err.message).not.toMatch(/\d J\/mol/);
     });
 
     it('accepts a cycle inside a stated tolerance', () => {
@@ -180,13 +196,41 @@ describe('solveHess', () => {
     expect(unusedOnly.uncertainty).not.toBeNull();
   });
 
+  it('combines uncertainties without underflow or overflow', () => {
+    const tiny = solveHess('H2O(l) -> H2O(g)', [
+      { equation: 'H2O(l) -> H2O(cr)', deltaH: 1, uncertainty: 1e-200 },
+      { equation: 'H2O(cr) -> H2O(g)', deltaH: 1, uncertainty: 1e-200 },
+    ]);
+    expect(tiny.uncertainty).toBeCloseTo(Math.SQRT2 * 1e-200, 210);
+    expect(tiny.uncertainty! / 1e-200).toBeCloseTo(Math.SQRT2, 12);
+    const huge = solveHess('H2O(l) -> H2O(g)', [
+      { equation: 'H2O(l) -> H2O(g)', deltaH: 1, uncertainty: 1.7e308 },
+    ]);
+    expect(huge.uncertainty).toBe(1.7e308);
+    const err = failure(() =>
+      solveHess('H2O(l) -> H2O(g)', [
+        { equation: 'H2O(l) -> H2O(cr)', deltaH: 1, uncertainty: 1.7e308 },
+        { equation: 'H2O(cr) -> H2O(g)', deltaH: 1, uncertainty: 1.7e308 },
+      ]),
+    );
+    expect(err.code).toBe('out_of_range');
+    expect(err.message).toMatch(/uncertainty .* too large/);
+    const sum = failure(() =>
+      solveHess('H2O(l) -> H2O(g)', [
+        { equation: 'H2O(l) -> H2O(cr)', deltaH: 1.7e308 },
+        { equation: 'H2O(cr) -> H2O(g)', deltaH: 1.7e308 },
+      ]),
+    );
+    expect(sum.code).toBe('out_of_range');
+  });
+
   it('reports bad steps with their index', () => {
     const err = failure(() =>
       solveHess('H2O(l) -> H2O(g)', [WATER_L, { equation: 'H2(g) + O2(g) H2O(g)', deltaH: 1 }]),
     );
     expect(err.code).toBe('parse_error');
     expect(err.details['step']).toBe(1);
-    expect(err.message).toMatch(/^step 1: /);
+    expect(err.message).toMatch(/^step 2: /);
     expect(
       failure(() => solveHess('H2O(l) -> H2O(g)', [{ ...WATER_L, deltaH: Number.NaN }])).code,
     ).toBe('invalid_input');

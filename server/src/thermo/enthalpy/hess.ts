@@ -7,6 +7,8 @@ import { solveLinear } from '../rational/rational-matrix';
 import { fractionText, isZero, scaleNumber, sign, ZERO } from '../rational/rational';
 import { toEquation } from '../equation/equation-input';
 import { balanceFor, type BalanceOptions } from './reaction-enthalpy';
+import { QuadratureSum } from './uncertainty';
+import { fromJoulesPerMole, type EnergyUnit } from './units';
 
 export interface HessStep {
   readonly equation: Equation | string;
@@ -31,7 +33,7 @@ export interface HessStepUse {
 export interface HessResult {
   readonly target: Equation;
   readonly deltaH: number;
-  /** √Σ(mᵢuᵢ)² over used steps; null if a used step has no uncertainty. */
+  /** √Σ(mᵢuᵢ)² over used steps (root sum of squares, independent steps); null if one has none. */
   readonly uncertainty: number | null;
   readonly multipliers: Fraction[];
   readonly steps: HessStepUse[];
@@ -51,6 +53,8 @@ export interface HessOptions extends BalanceOptions {
    * Default: floating-point noise only (1e-9 relative to the cycle's terms).
    */
   readonly cycleTolerance?: number;
+  /** Unit of the energies in error messages and details (default J/mol); results stay J/mol. */
+  readonly unit?: EnergyUnit;
 }
 
 interface PreparedStep {
@@ -65,13 +69,13 @@ function prepare(steps: readonly HessStep[]): PreparedStep[] {
   }
   return steps.map((s, index) => {
     if (s === null || typeof s !== 'object')
-      throw new ThermoError('invalid_input', `step ${index} is not an object`, { step: index });
+      throw new ThermoError('invalid_input', `step ${index + 1} is not an object`, { step: index });
     let equation: Equation;
     try {
       equation = toEquation(s.equation);
     } catch (err) {
       if (err instanceof ThermoError) {
-        throw new ThermoError(err.code, `step ${index}: ${err.message}`, {
+        throw new ThermoError(err.code, `step ${index + 1}: ${err.message}`, {
           ...err.details,
           step: index,
         });
@@ -79,15 +83,19 @@ function prepare(steps: readonly HessStep[]): PreparedStep[] {
       throw err;
     }
     if (typeof s.deltaH !== 'number' || !Number.isFinite(s.deltaH)) {
-      throw new ThermoError('invalid_input', `step ${index}: ΔH must be a finite number of J/mol`, {
-        step: index,
-      });
+      throw new ThermoError(
+        'invalid_input',
+        `step ${index + 1}: ΔH must be a finite number of J/mol`,
+        {
+          step: index,
+        },
+      );
     }
     const u = s.uncertainty;
     if (u !== undefined && u !== null && (typeof u !== 'number' || !Number.isFinite(u) || u < 0)) {
       throw new ThermoError(
         'invalid_input',
-        `step ${index}: uncertainty must be a finite number ≥ 0`,
+        `step ${index + 1}: uncertainty must be a finite number ≥ 0`,
         { step: index },
       );
     }
@@ -139,8 +147,9 @@ export function solveHess(
       (acc, m, i) => acc + Math.abs(scaleNumber(deltaHs[i] as number, m)),
       0,
     );
+    if (!Number.isFinite(cycleDeltaH)) throw overflow('ΔH', options.unit);
     if (Math.abs(cycleDeltaH) > Math.max(tolerance, 1e-9 * scale))
-      throw inconsistent(cycle, cycleDeltaH, prepared, columns);
+      throw inconsistent(cycle, cycleDeltaH, prepared, columns, options.unit ?? 'J/mol');
   }
 
   const multipliers = solution.particular;
@@ -151,24 +160,38 @@ export function solveHess(
     scale: m.abs(),
     deltaH: scaleNumber(deltaHs[index] as number, m),
   }));
-  let sumSquares = 0;
-  let uncertain = false;
+  const combined = new QuadratureSum();
   multipliers.forEach((m, i) => {
-    if (isZero(m)) return;
     const u = (prepared[i] as PreparedStep).uncertainty;
-    if (u === null) uncertain = true;
-    else sumSquares += scaleNumber(u, m) ** 2;
+    if (!isZero(m)) combined.add(u === null ? null : scaleNumber(u, m), null);
   });
+  const deltaH = weightedSum(deltaHs, multipliers);
+  if (!Number.isFinite(deltaH) || uses.some((u) => !Number.isFinite(u.deltaH)))
+    throw overflow('ΔH', options.unit);
+  const uncertainty = combined.uncertainty;
+  if (uncertainty !== null && !Number.isFinite(uncertainty))
+    throw overflow('the uncertainty', options.unit);
   return {
     target: goal,
-    deltaH: weightedSum(deltaHs, multipliers),
-    uncertainty: uncertain ? null : Math.sqrt(sumSquares),
+    deltaH,
+    uncertainty,
     multipliers,
     steps: uses,
     unused: uses.filter((u) => isZero(u.multiplier)).map((u) => u.index),
     alternativeSolutions: solution.nullSpace.length > 0,
   };
 }
+
+function overflow(what: string, unit: EnergyUnit = 'J/mol'): ThermoError {
+  return new ThermoError(
+    'out_of_range',
+    `${what} of the combination is too large to compute: beyond ±${fromJoulesPerMole(Number.MAX_VALUE, unit).toPrecision(3)} ${unit}`,
+    { unit },
+  );
+}
+
+/** An energy for a message: 12 significant digits hide float noise such as 1.0000000000002. */
+const energyText = (value: number): string => String(Number(value.toPrecision(12)));
 
 function unreachable(
   ids: readonly string[],
@@ -192,12 +215,13 @@ function inconsistent(
   cycleDeltaH: number,
   steps: readonly PreparedStep[],
   columns: ReadonlyMap<string, Term>,
+  unit: EnergyUnit,
 ): ThermoError {
   const used = cycle.map((m, index) => ({ index, m })).filter(({ m }) => !isZero(m));
   const combination = used
     .map(({ index, m }, k) => {
       const s = sign(m) < 0 ? (k === 0 ? '−' : ' − ') : k === 0 ? '' : ' + ';
-      return `${s}${fractionText(m.abs())}×(step ${index})`;
+      return `${s}${fractionText(m.abs())}×(step ${index + 1})`;
     })
     .join('');
   // The same net reaction reached by the positive and by the negative part of the cycle.
@@ -220,16 +244,20 @@ function inconsistent(
     0,
   );
   const viaNegative = viaPositive - cycleDeltaH;
+  const [cycleValue, one, other] = [cycleDeltaH, viaPositive, viaNegative].map((v) =>
+    fromJoulesPerMole(v, unit),
+  ) as [number, number, number];
   return new ThermoError(
     'not_unique',
-    `the steps are thermodynamically inconsistent: ${combination} is a closed cycle with ΔH = ${cycleDeltaH} J/mol instead of 0, ` +
-      `so ${reaction} gets ΔH = ${viaPositive} J/mol one way and ${viaNegative} J/mol the other, and the multipliers are not unique`,
+    `the steps are thermodynamically inconsistent: ${combination} is a closed cycle with ΔH = ${energyText(cycleValue)} ${unit} instead of 0, ` +
+      `so ${reaction} gets ΔH = ${energyText(one)} ${unit} one way and ${energyText(other)} ${unit} the other, and the multipliers are not unique`,
     {
       combination,
       multipliers: cycle.map(fractionText),
-      cycleDeltaH,
+      cycleDeltaH: cycleValue,
       reaction,
-      deltaHs: [viaPositive, viaNegative],
+      deltaHs: [one, other],
+      unit,
     },
   );
 }

@@ -12,7 +12,7 @@ export type CombinedBasis = UncertaintyBasis | 'mixed';
  * 'as_stated'; inputs of different bases give 'mixed', and no conversion between bases is made.
  */
 export class QuadratureSum {
-  private sumSquares = 0;
+  private total = 0;
   private unknown = false;
   private basis: CombinedBasis | null = null;
 
@@ -28,13 +28,14 @@ export class QuadratureSum {
       this.unknown = true;
       return;
     }
-    this.sumSquares += scaledUncertainty * scaledUncertainty;
+    // Math.hypot scales internally: no underflow at 1e-200, no overflow near 1e308.
+    this.total = Math.hypot(this.total, scaledUncertainty);
     const b: UncertaintyBasis = basis ?? 'as_stated';
     this.basis = this.basis === null || this.basis === b ? b : 'mixed';
   }
 
   get uncertainty(): number | null {
-    return this.unknown ? null : Math.sqrt(this.sumSquares);
+    return this.unknown ? null : this.total;
   }
 
   get combinedBasis(): CombinedBasis | null {

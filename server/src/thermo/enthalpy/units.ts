@@ -42,7 +42,15 @@ function factor<U extends string>(table: Record<U, number>, unit: U): number {
 }
 
 export function toJoulesPerMole(value: number, unit: EnergyUnit): number {
-  return finite(value, 'the value') * factor(MOLAR, unit);
+  const joules = finite(value, 'the value') * factor(MOLAR, unit);
+  if (!Number.isFinite(joules)) {
+    throw new ThermoError(
+      'invalid_input',
+      `${value} ${unit} is too large: beyond ±${(Number.MAX_VALUE / factor(MOLAR, unit)).toPrecision(3)} ${unit}`,
+      { value, unit },
+    );
+  }
+  return joules;
 }
 
 export function fromJoulesPerMole(value: number, unit: EnergyUnit): number {

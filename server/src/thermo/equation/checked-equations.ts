@@ -38,7 +38,9 @@ export function isTerm(t: unknown): boolean {
   if (els === null || typeof els !== 'object') return false;
   for (const symbol in els) {
     const n = els[symbol];
-    if (typeof n !== 'number' || !Number.isSafeInteger(n) || n <= 0) return false;
+    if (typeof n !== 'number' || !Number.isFinite(n) || n <= 0) return false;
+    // A non-integer count is only trusted with its exact value beside it.
+    if (!Number.isSafeInteger(n) && typeof species.exact?.[symbol]?.n !== 'bigint') return false;
   }
   return true;
 }

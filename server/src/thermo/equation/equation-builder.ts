@@ -19,7 +19,13 @@ export function speciesLabel(species: Species): string {
   throw new ThermoError('invalid_input', 'expected a species (a formula or a registry key)');
 }
 
-/** `H2O(l)`, `C(cr,graphite)`, `[2-methylpropane](g)`, or just `H2O` without a phase. */
+/**
+ * `H2O(l)`, `C(cr)`, `C(diamond)`, `[2-methylpropane](g)`, or just `H2O` without a phase. Our
+ * canonical notation: a crystal modification's name alone stands for its crystal phase
+ * (`CaCO3(calcite)`), a crystal with no modification named is plain `(cr)`; the input form
+ * `(cr,diamond)` is read but never printed. A modification of another phase (rare) keeps
+ * `(phase,name)`.
+ */
 export function speciesPhaseId(
   species: Species,
   phase: Phase | null,
@@ -32,7 +38,50 @@ export function speciesPhaseId(
   }
   const label = speciesLabel(species);
   if (phase === null) return label;
-  return modification === null ? `${label}(${phase})` : `${label}(${phase},${modification})`;
+  if (modification === null) return `${label}(${phase})`;
+  return phase === 'cr' && standsAlone(modification)
+    ? `${label}(${modification})`
+    : `${label}(${phase},${modification})`;
+}
+
+/** Words people write for a phase, with the label they mean: never read as a modification. */
+export const PHASE_WORDS: Readonly<Record<string, Phase>> = {
+  g: 'g',
+  l: 'l',
+  cr: 'cr',
+  s: 's',
+  am: 'am',
+  aq: 'aq',
+  gas: 'g',
+  vap: 'g',
+  vapor: 'g',
+  vapour: 'g',
+  liq: 'l',
+  liquid: 'l',
+  sol: 's',
+  solid: 's',
+  c: 'cr',
+  crys: 'cr',
+  cryst: 'cr',
+  crystal: 'cr',
+  amorph: 'am',
+  amorphous: 'am',
+  aqueous: 'aq',
+  soln: 'aq',
+};
+
+/**
+ * A modification label that can stand alone for its crystal, `(diamond)`: lower case, at least
+ * three characters, not a word for a phase. Others (`I`, `β`) keep the long form `(cr,I)` so that
+ * printed equations always read back the same.
+ */
+export function standsAlone(label: string): boolean {
+  return (
+    /^[a-z][a-z0-9' -]*[a-z0-9']$/.test(label) &&
+    label.length >= 3 &&
+    !label.includes('  ') &&
+    !Object.prototype.hasOwnProperty.call(PHASE_WORDS, /^[a-z]*/.exec(label)![0])
+  );
 }
 
 export function makeTemplate(

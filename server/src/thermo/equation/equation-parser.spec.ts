@@ -55,14 +55,62 @@ describe('parseEquation', () => {
     expect(parseEquation('2H2(g) + O2(g) -> 2H2O(l)').reactants.map(coef)).toEqual(['2', '1']);
   });
 
+  it('reads a modification name alone as its crystal, the same species-phase as (cr,name)', () => {
+    const short = parseEquation('C(diamond) + TiO2(rutile) -> CaCO3(calcite)');
+    expect(short.reactants[0]).toMatchObject({
+      phase: 'cr',
+      modification: 'diamond',
+      id: 'C(diamond)',
+    });
+    expect(short.reactants[1]).toMatchObject({ phase: 'cr', modification: 'rutile' });
+    const long = parseEquation('C(cr,diamond) -> C(cr)');
+    expect(long.reactants[0]!.id).toBe(short.reactants[0]!.id);
+    expect(long.products[0]!.id).toBe('C(cr)');
+  });
+
+  it.each([
+    ['H2O(G) -> H2O(l)', 3, /phases are written in lower case: write \(g\), not \(G\)/],
+    ['H2O(l) -> H2O(AQ)', 13, /lower case: write \(aq\)/],
+    ['H2O(CR,ice) -> H2O(l)', 3, /lower case: write \(cr,ice\)/],
+    ['H2O(l) -> H2O(S)', 13, /\(S\)' reads as an element group.*lower case, \(s\)/],
+    ['Cu(Cr) -> Cu(cr)', 2, /lower case, \(cr\)/],
+    ['H2O(gas) -> H2O(l)', 4, /unknown phase 'gas'.*did you mean \(g\)/],
+    ['H2O(l) -> H2O(vapour)', 14, /did you mean \(g\)/],
+    ['01 H2(g) -> H2(g)', 0, /coefficient is written without leading zeros/],
+    ['H01(g) -> H(g)', 1, /count is written without leading zeros/],
+  ])('refuses %p, saying what is wrong (position %p)', (text, position, message) => {
+    let err: ThermoError | undefined;
+    try {
+      parseEquation(text);
+    } catch (e) {
+      err = e as ThermoError;
+    }
+    expect(err).toBeInstanceOf(ThermoError);
+    expect(err!.code).toBe('parse_error');
+    expect(err!.details['position']).toBe(position);
+    expect(err!.message).toMatch(message);
+    expect(err!.message).not.toMatch(/unknown element/);
+  });
+
+  it('names an unknown element symbol plainly', () => {
+    let err: ThermoError | undefined;
+    try {
+      parseEquation('Xy(g) -> Xy(l)');
+    } catch (e) {
+      err = e as ThermoError;
+    }
+    expect(err).toMatchObject({ code: 'unknown_element', details: { symbol: 'Xy', position: 0 } });
+    expect(err!.message).toBe('unknown element symbol Xy at character 1');
+  });
+
   it('reads modification labels and trims them', () => {
     const eq = parseEquation('C(cr,diamond) -> C(cr, graphite)');
     expect(eq.reactants[0]).toMatchObject({
       phase: 'cr',
       modification: 'diamond',
-      id: 'C(cr,diamond)',
+      id: 'C(diamond)',
     });
-    expect(eq.products[0]).toMatchObject({ modification: 'graphite', id: 'C(cr,graphite)' });
+    expect(eq.products[0]).toMatchObject({ modification: 'graphite', id: 'C(graphite)' });
     expect(parseEquation('CaCO3(cr,calcite) -> CaO(cr) + CO2(g)').reactants[0]?.modification).toBe(
       'calcite',
     );
@@ -173,7 +221,7 @@ describe('parseEquation', () => {
     ['H2(g) -> H2O(l) -> H2O(g)', 16, /exactly one arrow/],
     ['H2(g) -> H2O(l) 2', 16, /expected '\+' or the end of the equation/],
     ['H2O(x) -> H2O(g)', 4, /unknown phase 'x'; use g, l, cr, s, am or aq/],
-    ['H2O(l -> H2O(g)', 5, /expected '\)' to close the phase opened at position 3/],
+    ['H2O(l -> H2O(g)', 5, /expected '\)' to close the phase label/],
     ['C(cr,) -> C(g)', 5, /expected a modification label/],
     ['0 H2(g) -> H2(g)', 0, /greater than zero/],
     ['1/0 H2(g) -> H2(g)', 2, /zero denominator/],
@@ -185,7 +233,9 @@ describe('parseEquation', () => {
     expect(err.code).toBe('parse_error');
     expect(err.details['position']).toBe(position);
     expect(err.message).toMatch(message);
-    expect(err.message).toMatch(new RegExp(`at position ${position}$`));
+    // The message counts characters from 1, once; `position` is the 0-based index.
+    expect(err.message).toMatch(new RegExp(`at character ${position + 1}$`));
+    expect(err.message.match(/character|position/g)).toHaveLength(1);
   });
 
   it('reports unknown elements inside an equation at their position', () => {

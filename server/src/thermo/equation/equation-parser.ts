@@ -1,6 +1,13 @@
 import type Fraction from 'fraction.js';
 import { parseError, ThermoError } from '../errors/thermo-error';
-import { netEquation, makeTemplate, makeTerm, type TermTemplate } from './equation-builder';
+import {
+  netEquation,
+  makeTemplate,
+  makeTerm,
+  PHASE_WORDS,
+  standsAlone,
+  type TermTemplate,
+} from './equation-builder';
 import {
   PHASES,
   type Equation,
@@ -30,9 +37,12 @@ import { frac, ONE } from '../rational/rational';
 /*
  * Equation syntax: `CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)`.
  *   arrow        `->`, `=` or `→`, exactly one
- *   coefficient  integer, decimal (`0.5`) or fraction (`1/2`), optional, space optional
- *   species      formula (`SO4^2-`, `CuSO4·5H2O`) or registry key in brackets (`[2-methylpropane]`)
- *   phase        optional `(g|l|cr|s|am|aq)` with an optional modification: `(cr,diamond)`
+ *   coefficient  integer, decimal (`0.5`) or fraction (`1/2`), optional, space optional, no
+ *                leading zeros (`01` is refused, as the count `H01` is)
+ *   species      formula (`SO4^2-`, `CuSO4·5H2O`, `CaSO4·1/2H2O`, `Fe0.947O`) or registry key in
+ *                brackets (`[2-methylpropane]`)
+ *   phase        optional `(g|l|cr|s|am|aq)`, in lower case; a crystal modification's name alone
+ *                stands for the crystal (`C(diamond)`); `(cr,diamond)` is read as the same
  * A bracket group that reads as a formula is a formula (`[Fe(CN)6]^4-`); only a bracket that is
  * not a formula is a registry key.
  */
@@ -40,6 +50,9 @@ import { frac, ONE } from '../rational/rational';
 const MAX_LENGTH = 20000;
 const MAX_COEFFICIENT_LENGTH = 32;
 const MAX_LABEL = 64;
+
+/** Element groups that look like a phase written in capitals at the end of a term. */
+const CAPITAL_PHASE_GROUP = /\((S|Cr|Am)\)$/;
 
 const isDigit = (c: string): boolean => c >= '0' && c <= '9';
 const isLower = (c: string): boolean => c >= 'a' && c <= 'z';
@@ -126,6 +139,8 @@ class EquationParser {
     if (!digitCode(this.text.charCodeAt(this.pos))) return ONE;
     const start = this.pos;
     while (digitCode(this.text.charCodeAt(this.pos))) this.pos++;
+    if (this.pos - start > 1 && this.text.charCodeAt(start) === ZERO_CODE)
+      throw parseError('a coefficient is written without leading zeros', start);
     const sep = this.text[this.pos];
     if (sep === '.' || sep === '/') {
       this.pos++;
@@ -180,7 +195,23 @@ class EquationParser {
   formulaSpecies(): FormulaSpecies {
     const c = this.text[this.pos] as string;
     if (c === '.' || c === '/') throw parseError(`unexpected '${c}' in a coefficient`, this.pos);
-    const { formula, end } = scanTermFormula(this.text, this.pos);
+    let scanned: ReturnType<typeof scanTermFormula>;
+    try {
+      scanned = scanTermFormula(this.text, this.pos);
+    } catch (err) {
+      throw capitalPhase(this.text, err) ?? err;
+    }
+    const { formula, end } = scanned;
+    // Judged on the canonical form, so that printed equations always read back.
+    const group = CAPITAL_PHASE_GROUP.exec(formula.formula);
+    if (group !== null) {
+      const written = group[1] as string;
+      throw parseError(
+        `'(${written})' reads as an element group, not a phase: phases are written in lower case, (${written.toLowerCase()}); write ${written} without brackets to mean the element`,
+        Math.max(this.pos, this.text.lastIndexOf('(', end - 1)),
+        { phase: written },
+      );
+    }
     this.pos = end;
     return Object.freeze({ kind: 'formula', ...formula });
   }
@@ -211,11 +242,7 @@ class EquationParser {
     const wordStart = this.pos;
     while (isLower(this.text[this.pos] ?? '')) this.pos++;
     const word = this.text.slice(wordStart, this.pos);
-    if (!(PHASES as readonly string[]).includes(word)) {
-      throw parseError(`unknown phase '${word}'; use g, l, cr, s, am or aq`, wordStart, {
-        phase: word,
-      });
-    }
+    if (!(PHASES as readonly string[]).includes(word)) return this.modificationAlone(wordStart);
     let modification: string | null = null;
     if (this.text[this.pos] === ',') {
       this.pos++;
@@ -232,10 +259,32 @@ class EquationParser {
       modification = label;
     }
     if (this.text[this.pos] !== ')') {
-      throw parseError(`expected ')' to close the phase opened at position ${open}`, this.pos);
+      throw parseError("expected ')' to close the phase label", this.pos, { opened: open });
     }
     this.pos++;
     return [word as Phase, modification];
+  }
+
+  /** `(diamond)`: a modification's name alone stands for its crystal phase. */
+  modificationAlone(start: number): [Phase, string] {
+    let end = start;
+    while (end < this.text.length && !'()[],'.includes(this.text[end] as string)) end++;
+    const label = this.text.slice(start, end).trim().replace(/\s+/g, ' ');
+    const word = /^[a-z]*/.exec(this.text.slice(start))![0];
+    const meant = Object.prototype.hasOwnProperty.call(PHASE_WORDS, word)
+      ? PHASE_WORDS[word]
+      : undefined;
+    if (meant !== undefined || this.text[end] !== ')' || !standsAlone(label)) {
+      const hint = meant === undefined ? '' : ` — did you mean (${meant})?`;
+      throw parseError(
+        `unknown phase '${word}'; use g, l, cr, s, am or aq, or a crystal modification's name such as (diamond)${hint}`,
+        start,
+        { phase: word },
+      );
+    }
+    if (label.length > MAX_LABEL) throw parseError('modification label too long', start);
+    this.pos = end + 1;
+    return ['cr', label];
   }
 
   arrowLength(): number {
@@ -248,6 +297,23 @@ class EquationParser {
   skipSpace(): void {
     while (spaceCode(this.text.charCodeAt(this.pos))) this.pos++;
   }
+}
+
+/** `(G)`, `(AQ)`, `(CR)`: a phase in capitals fails as an unknown element; say what it is. */
+function capitalPhase(text: string, err: unknown): ThermoError | null {
+  if (!(err instanceof ThermoError) || err.code !== 'unknown_element') return null;
+  const at = err.details['position'];
+  if (typeof at !== 'number') return null;
+  const open = text.lastIndexOf('(', at);
+  if (open < 0 || !/^[A-Za-z]*$/.test(text.slice(open + 1, at))) return null;
+  const close = text.indexOf(')', at);
+  const inner = close < 0 ? '' : text.slice(open + 1, close);
+  const lower = inner.toLowerCase();
+  const phase = lower.split(',')[0] as string;
+  if (!Object.prototype.hasOwnProperty.call(PHASE_WORDS, phase)) return null;
+  return parseError(`phases are written in lower case: write (${lower}), not (${inner})`, open, {
+    phase: inner,
+  });
 }
 
 function literalToFraction(literal: string, position: number): Fraction {

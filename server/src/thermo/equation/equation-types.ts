@@ -4,6 +4,23 @@ import type Fraction from 'fraction.js';
 export type Phase = 'g' | 'l' | 'cr' | 's' | 'am' | 'aq';
 export const PHASES: readonly Phase[] = ['g', 'l', 'cr', 's', 'am', 'aq'];
 
+const PHASE_NAMES: Record<Phase, string> = {
+  g: 'gas',
+  l: 'liquid',
+  cr: 'crystal',
+  s: 'solid',
+  am: 'amorphous',
+  aq: 'aqueous',
+};
+
+/** The phase spelled out for people: "gas", "crystal, diamond", "aqueous"; null when unwritten. */
+export function phaseName(phase: Phase | null, modification: string | null = null): string | null {
+  if (phase === null) return null;
+  const name = PHASE_NAMES[phase];
+  if (name === undefined) return null;
+  return modification === null ? name : `${name}, ${modification}`;
+}
+
 /** A species identified by its formula (composition known). */
 export interface FormulaSpecies {
   readonly kind: 'formula';
@@ -13,6 +30,8 @@ export interface FormulaSpecies {
   readonly charge: number;
   /** Hill-order display formula. */
   readonly hill: string;
+  /** Exact counts, present only when some count is not whole (`Fe0.947O`, `CaSO4·1/2H2O`). */
+  readonly exact?: Readonly<Record<string, Fraction>>;
 }
 
 /** A species a formula cannot identify (isomers), named by its registry key; composition unknown. */

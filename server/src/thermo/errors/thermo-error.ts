@@ -30,13 +30,16 @@ export function isThermoError(value: unknown): value is ThermoError {
   return value instanceof ThermoError;
 }
 
-/** A parse error always carries the 0-based position into the text that was parsed. */
+/**
+ * A parse error carries `position`, the 0-based index (UTF-16 code units) into the text that was
+ * parsed, for programs; its message states the place once for people, counting from 1.
+ */
 export function parseError(
   message: string,
   position: number,
   extra: Record<string, unknown> = {},
 ): ThermoError {
-  return new ThermoError('parse_error', `${message} at position ${position}`, {
+  return new ThermoError('parse_error', `${message} at character ${position + 1}`, {
     position,
     ...extra,
   });

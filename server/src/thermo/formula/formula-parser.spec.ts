@@ -1,6 +1,6 @@
 import { ELEMENT_SYMBOLS } from './atomic-weights';
 import { ThermoError } from '../errors/thermo-error';
-import { parseFormula } from './formula-parser';
+import { exactCounts, parseFormula } from './formula-parser';
 
 function failure(text: string): ThermoError {
   try {
@@ -31,6 +31,28 @@ describe('parseFormula', () => {
     expect(parseFormula('K4[Fe(CN)6]').elements).toEqual({ C: 6, Fe: 1, K: 4, N: 6 });
     expect(parseFormula('[Co(NH3)6]Cl3').elements).toEqual({ Cl: 3, Co: 1, H: 18, N: 6 });
     expect(parseFormula('((CH3)3C)2O').elements).toEqual({ C: 8, H: 18, O: 1 });
+  });
+
+  it('reads fractional hydrates and decimal subscripts exactly', () => {
+    // Calcium sulfate hemihydrate, written with a fraction or a decimal: one canonical form.
+    const half = parseFormula('CaSO4·1/2H2O');
+    const decimal = parseFormula('CaSO4·0.5H2O');
+    expect(half.formula).toBe('CaSO4·1/2H2O');
+    expect(decimal.formula).toBe(half.formula);
+    expect(half.elements).toEqual({ Ca: 1, H: 1, O: 4.5, S: 1 });
+    expect(half.exact!['O']!.toFraction()).toBe('9/2');
+    expect(half.hill).toBe('CaHO4.5S');
+    // Wüstite, iron-deficient iron(II) oxide.
+    const wustite = parseFormula('Fe0.947O');
+    expect(wustite.formula).toBe('Fe0.947O');
+    expect(wustite.exact!['Fe']!.toFraction()).toBe('947/1000');
+    expect(exactCounts(wustite)['O']!.toFraction()).toBe('1');
+    // A third: exact, where a float would not be.
+    const third = parseFormula('X2O·1/3H2O'.replace('X', 'Na'));
+    expect(third.exact!['H']!.toFraction()).toBe('2/3');
+    expect(third.hill).toBe('H2/3Na2O4/3');
+    // Whole counts carry no exact map: the integer fast path stays as it was.
+    expect(parseFormula('CuSO4·5H2O').exact).toBeUndefined();
   });
 
   it('reads hydrates with · or * and a multiplier on the hydrate part', () => {
@@ -87,7 +109,11 @@ describe('parseFormula', () => {
     ['Ca(OH]2', 5, /mismatched '\]'/],
     ['CaOH)2', 4, /no group to close/],
     ['Ca()2', 2, /empty group/],
-    ['H0', 1, /at least 1/],
+    ['H0', 1, /greater than zero/],
+    ['H01', 1, /without leading zeros/],
+    ['CuSO4.5H2O', 4, /ambiguous.*CuSO4·5H2O/],
+    ['CaSO4·0H2O', 6, /greater than zero/],
+    ['CaSO4·1/0H2O', 6, /zero denominator/],
     ['H2O(l)', 3, /phase label belongs to an equation term/],
     ['SO4^2', 3, /expected a charge/],
     ['CuSO4·', 6, /expected a formula after the hydrate dot/],
@@ -98,7 +124,7 @@ describe('parseFormula', () => {
     expect(err.code).toBe('parse_error');
     expect(err.details['position']).toBe(position);
     expect(err.message).toMatch(message);
-    expect(err.message).toContain(`at position ${position}`);
+    expect(err.message).toContain(`at character ${position + 1}`);
   });
 
   it('rejects non-strings as invalid input', () => {

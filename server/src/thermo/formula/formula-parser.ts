@@ -1,18 +1,40 @@
+import type Fraction from 'fraction.js';
 import { isElementSymbol } from './atomic-weights';
 import { parseError, ThermoError } from '../errors/thermo-error';
-import { chargeSuffix, hillOrder } from './hill-formula';
+import { chargeSuffix, countText, hillOrder } from './hill-formula';
+import { frac, ONE, toNumber } from '../rational/rational';
 
 /**
  * A chemical formula as written, reduced to its composition. `formula` is the canonical written
  * form (groups kept as written, `·` for the hydrate dot, counts of 1 dropped, charge as `+`, `-`,
- * `^2-`): two spellings of one substance agree on it, while isomers written differently
- * (C2H5OH, CH3OCH3) stay apart. `elements` iterates in Hill order.
+ * `^2-`, a fractional hydrate multiplier as `1/2`): two spellings of one substance agree on it,
+ * while isomers written differently (C2H5OH, CH3OCH3) stay apart. `elements` iterates in Hill
+ * order.
+ *
+ * Counts may be non-integer: decimal subscripts (`Fe0.947O`) and fractional hydrate multipliers
+ * (`CaSO4·1/2H2O`, `CaSO4·0.5H2O`). Then `exact` holds every count as an exact fraction and
+ * `elements` the nearest floating-point values (for masses and display); code that needs exact
+ * stoichiometry reads counts through `exactCounts`.
  */
 export interface ParsedFormula {
   readonly formula: string;
   readonly elements: Readonly<Record<string, number>>;
   readonly charge: number;
   readonly hill: string;
+  /** Present only when some count is not a whole number. */
+  readonly exact?: Readonly<Record<string, Fraction>>;
+}
+
+/** Every count of a formula as an exact fraction (whole counts converted). */
+export function exactCounts(
+  formula: Pick<ParsedFormula, 'elements' | 'exact'>,
+): Readonly<Record<string, Fraction>> {
+  if (formula === null || typeof formula !== 'object' || typeof formula.elements !== 'object')
+    throw new ThermoError('invalid_input', 'expected a parsed formula');
+  if (formula.exact !== undefined) return formula.exact;
+  const out: Record<string, Fraction> = {};
+  for (const symbol in formula.elements) out[symbol] = frac(formula.elements[symbol] as number);
+  return out;
 }
 
 export interface FormulaScan {
@@ -21,9 +43,11 @@ export interface FormulaScan {
   readonly end: number;
 }
 
-// Guards keep counts exact integers far below 2^53 whatever the nesting.
+// Guards keep counts exact and far below 2^53 whatever the nesting.
 const MAX_DIGITS = 6;
 const MAX_TOTAL = 1e9;
+
+type Counts = Map<string, Fraction>;
 const HYDRATE_DOTS = '·*';
 
 const isUpper = (c: string): boolean => c >= 'A' && c <= 'Z';
@@ -50,12 +74,12 @@ class Scanner {
   }
 
   scan(): ParsedFormula {
-    const totals = new Map<string, number>();
+    const totals: Counts = new Map();
     let canonical = '';
     let first = true;
     for (;;) {
       const partStart = this.pos;
-      let multiplier = 1;
+      let multiplier = ONE;
       if (isDigit(this.peek())) {
         if (first) {
           throw parseError(
@@ -63,7 +87,7 @@ class Scanner {
             this.pos,
           );
         }
-        multiplier = this.readCount();
+        multiplier = this.readMultiplier();
       }
       const part = this.sequence(null);
       if (part.text === '') {
@@ -74,8 +98,9 @@ class Scanner {
         );
       }
       for (const [symbol, count] of part.counts)
-        addCount(totals, symbol, count * multiplier, partStart);
-      canonical += (first ? '' : '·') + (multiplier === 1 ? '' : String(multiplier)) + part.text;
+        addCount(totals, symbol, count.mul(multiplier), partStart);
+      canonical +=
+        (first ? '' : '·') + (multiplier.equals(ONE) ? '' : multiplierText(multiplier)) + part.text;
       first = false;
       if (HYDRATE_DOTS.includes(this.peek()) && this.peek() !== '') {
         this.pos++;
@@ -87,8 +112,8 @@ class Scanner {
     return buildFormula(totals, canonical, charge);
   }
 
-  private sequence(closer: string | null): { counts: Map<string, number>; text: string } {
-    const counts = new Map<string, number>();
+  private sequence(closer: string | null): { counts: Counts; text: string } {
+    const counts: Counts = new Map();
     let text = '';
     for (;;) {
       const c = this.peek();
@@ -100,16 +125,16 @@ class Scanner {
         if (!isElementSymbol(symbol)) {
           throw new ThermoError(
             'unknown_element',
-            `unknown element symbol '${symbol}' at position ${at}`,
+            `unknown element symbol ${symbol} at character ${at + 1}`,
             {
               position: at,
               symbol,
             },
           );
         }
-        const n = isDigit(this.peek()) ? this.readCount() : 1;
+        const n = isDigit(this.peek()) ? this.readCount() : ONE;
         addCount(counts, symbol, n, at);
-        text += n === 1 ? symbol : symbol + n;
+        text += n.equals(ONE) ? symbol : symbol + countText(n);
       } else if (c === '(' || c === '[') {
         // "(" followed by a lowercase letter opens a phase label, never a group.
         if (c === '(' && isLower(this.text[this.pos + 1] ?? '')) break;
@@ -118,9 +143,9 @@ class Scanner {
         const inner = this.sequence(CLOSER[c] as string);
         if (inner.text === '') throw parseError(`empty group '${c}${CLOSER[c]}'`, open);
         this.pos++; // the closer, checked by the inner sequence
-        const n = isDigit(this.peek()) ? this.readCount() : 1;
-        for (const [symbol, count] of inner.counts) addCount(counts, symbol, count * n, open);
-        text += c + inner.text + CLOSER[c] + (n === 1 ? '' : String(n));
+        const n = isDigit(this.peek()) ? this.readCount() : ONE;
+        for (const [symbol, count] of inner.counts) addCount(counts, symbol, count.mul(n), open);
+        text += c + inner.text + CLOSER[c] + (n.equals(ONE) ? '' : countText(n));
       } else if (c === ')' || c === ']') {
         if (closer === c) return { counts, text };
         if (closer !== null) {
@@ -172,14 +197,69 @@ class Scanner {
     return 0;
   }
 
-  private readCount(): number {
+  /**
+   * A count after an element or a group: `2`, or a decimal such as `0.947` (non-stoichiometric
+   * phases). `CuSO4.5H2O` is refused rather than guessed: the period could be a hydrate dot.
+   */
+  private readCount(): Fraction {
+    const at = this.pos;
+    const whole = this.digits('count');
+    if (this.peek() !== '.' || !isDigit(this.text[this.pos + 1] ?? '')) {
+      if (whole === '0') throw parseError('a count must be greater than zero', at);
+      return frac(Number(whole));
+    }
+    this.pos++;
+    const decimals = this.fractionDigits();
+    const next = this.peek();
+    if (
+      whole !== '0' &&
+      (isUpper(next) || next === '[' || (next === '(' && !isLower(this.text[this.pos + 1] ?? '')))
+    ) {
+      throw parseError(
+        `'${whole}.${decimals}' followed by more formula is ambiguous: write a hydrate with '·' or '*' (CuSO4·5H2O), and a decimal count last or in brackets ((Mn1.5)O2)`,
+        at,
+      );
+    }
+    return decimalCount(whole, decimals, at);
+  }
+
+  /** A hydrate multiplier: `5`, `0.5` or `1/2`. */
+  private readMultiplier(): Fraction {
+    const at = this.pos;
+    const whole = this.digits('multiplier');
+    let value: Fraction;
+    if (this.peek() === '/' && isDigit(this.text[this.pos + 1] ?? '')) {
+      this.pos++;
+      const d = this.digits('denominator');
+      if (Number(d) === 0) throw parseError('a fraction cannot have a zero denominator', at);
+      value = frac(Number(whole), Number(d));
+    } else if (this.peek() === '.' && isDigit(this.text[this.pos + 1] ?? '')) {
+      this.pos++;
+      value = decimalCount(whole, this.fractionDigits(), at);
+    } else {
+      value = frac(Number(whole));
+    }
+    if (value.n === 0n) throw parseError('a hydrate multiplier must be greater than zero', at);
+    return value;
+  }
+
+  /** Whole-number digits, written as they are counted: no leading zeros (`01` → `1`). */
+  private digits(what: string): string {
     const at = this.pos;
     let digits = '';
     while (isDigit(this.peek())) digits += this.text[this.pos++];
-    if (digits[0] === '0')
-      throw parseError('a count must be a whole number of at least 1, without leading zeros', at);
-    if (digits.length > MAX_DIGITS) throw parseError('count too large', at);
-    return Number(digits);
+    if (digits.length > 1 && digits[0] === '0')
+      throw parseError(`a ${what} is written without leading zeros`, at);
+    if (digits.length > MAX_DIGITS) throw parseError(`${what} too large`, at);
+    return digits;
+  }
+
+  private fractionDigits(): string {
+    const at = this.pos;
+    let digits = '';
+    while (isDigit(this.peek())) digits += this.text[this.pos++];
+    if (digits.length > MAX_DIGITS) throw parseError('too many decimal places', at);
+    return digits;
   }
 
   peek(): string {
@@ -192,23 +272,35 @@ class Scanner {
   }
 }
 
-function addCount(map: Map<string, number>, symbol: string, n: number, position: number): void {
-  const total = (map.get(symbol) ?? 0) + n;
-  if (total > MAX_TOTAL) throw parseError(`too many atoms of ${symbol}`, position);
+function decimalCount(whole: string, decimals: string, at: number): Fraction {
+  const value = frac(BigInt(whole + decimals), 10n ** BigInt(decimals.length));
+  if (value.n === 0n) throw parseError('a count must be greater than zero', at);
+  return value;
+}
+
+/** A hydrate multiplier as the canonical formula writes it: `5`, `1/2` (also for `0.5`). */
+function multiplierText(f: Fraction): string {
+  return f.d === 1n ? String(f.n) : `${f.n}/${f.d}`;
+}
+
+function addCount(map: Counts, symbol: string, n: Fraction, position: number): void {
+  const prev = map.get(symbol);
+  const total = prev === undefined ? n : prev.add(n);
+  if (total.compare(MAX_TOTAL) > 0) throw parseError(`too many atoms of ${symbol}`, position);
   map.set(symbol, total);
 }
 
-function buildFormula(
-  totals: Map<string, number>,
-  canonical: string,
-  charge: number,
-): ParsedFormula {
+function buildFormula(totals: Counts, canonical: string, charge: number): ParsedFormula {
   const elements: Record<string, number> = {};
+  const exact: Record<string, Fraction> = {};
+  let whole = true;
   let hill = '';
   for (const symbol of hillOrder(totals.keys())) {
-    const n = totals.get(symbol) as number;
-    elements[symbol] = n;
-    hill += n === 1 ? symbol : symbol + n;
+    const n = totals.get(symbol) as Fraction;
+    exact[symbol] = n;
+    if (n.d !== 1n) whole = false;
+    elements[symbol] = toNumber(n);
+    hill += n.equals(ONE) ? symbol : symbol + countText(n);
   }
   const suffix = chargeSuffix(charge);
   return Object.freeze({
@@ -216,6 +308,7 @@ function buildFormula(
     elements: Object.freeze(elements),
     charge,
     hill: hill + suffix,
+    ...(whole ? {} : { exact: Object.freeze(exact) }),
   });
 }
 

@@ -27,7 +27,9 @@ describe('Hill order', () => {
     expect(() => hillFormula({ Qq: 1 })).toThrow(
       expect.objectContaining({ code: 'unknown_element' }),
     );
-    expect(() => hillFormula({ H: 1.5 })).toThrow(
+    // Non-integer counts (non-stoichiometric phases) print as decimals.
+    expect(hillFormula({ Fe: 0.947, O: 1 })).toBe('Fe0.947O');
+    expect(() => hillFormula({ H: -1.5 })).toThrow(
       expect.objectContaining({ code: 'invalid_input' }),
     );
     expect(() => hillFormula({ H: 1 }, 0.5)).toThrow(

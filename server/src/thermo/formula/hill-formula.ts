@@ -1,3 +1,4 @@
+import type Fraction from 'fraction.js';
 import { isElementSymbol } from './atomic-weights';
 import { ThermoError } from '../errors/thermo-error';
 
@@ -25,6 +26,18 @@ export function hillOrder(symbols: Iterable<string>): string[] {
   });
 }
 
+/**
+ * A count as formulas write it: `2`, a terminating decimal `0.947` / `4.5`, or, for the rare
+ * count with another denominator (a 1/3 hydrate), the fraction `13/3`.
+ */
+export function countText(n: Fraction): string {
+  if (n.d === 1n) return String(n.n);
+  let d = n.d;
+  while (d % 2n === 0n) d /= 2n;
+  while (d % 5n === 0n) d /= 5n;
+  return d === 1n ? n.toString() : `${n.n}/${n.d}`;
+}
+
 /** Charge suffix as the parser reads it back: `+`/`-` for ±1, `^2-`, `^3+` otherwise. */
 export function chargeSuffix(charge: number): string {
   if (charge === 0) return '';
@@ -47,8 +60,9 @@ export function hillFormula(elements: Readonly<Record<string, number>>, charge =
     if (!isElementSymbol(symbol)) {
       throw new ThermoError('unknown_element', `unknown element symbol '${symbol}'`, { symbol });
     }
-    if (typeof count !== 'number' || !Number.isSafeInteger(count) || count < 0) {
-      throw new ThermoError('invalid_input', `count of ${symbol} must be a whole number ≥ 0`, {
+    // Non-integer counts (Fe0.947O) print as decimals; whole counts as written.
+    if (typeof count !== 'number' || !Number.isFinite(count) || count < 0 || count > 1e15) {
+      throw new ThermoError('invalid_input', `count of ${symbol} must be a number ≥ 0`, {
         symbol,
         count,
       });

@@ -1,4 +1,5 @@
 import Fraction from 'fraction.js';
+import { ThermoError } from '../errors/thermo-error';
 
 /**
  * Exact-rational plumbing shared by the parser, balance and linear algebra. Fraction instances
@@ -67,5 +68,7 @@ export function toSmallestIntegers(vector: readonly Fraction[]): bigint[] {
 
 /** Canonical text of a coefficient: "2", "1/2", "-3/4". */
 export function fractionText(f: Fraction): string {
+  if (!(f instanceof Fraction))
+    throw new ThermoError('invalid_input', 'expected an exact number (a fraction)');
   return f.toFraction(false);
 }

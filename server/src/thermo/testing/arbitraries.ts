@@ -10,7 +10,12 @@ export const elementSymbol = fc.oneof(
   { weight: 1, arbitrary: fc.constantFrom(...ELEMENT_SYMBOLS) },
 );
 
-const count = fc.oneof(fc.constant(''), fc.integer({ min: 1, max: 12 }).map(String));
+const count = fc.oneof(
+  { weight: 6, arbitrary: fc.constant('') },
+  { weight: 6, arbitrary: fc.integer({ min: 1, max: 12 }).map(String) },
+  // Non-integer subscripts (non-stoichiometric phases); a whole part of 0 is never ambiguous.
+  { weight: 1, arbitrary: fc.constantFrom('0.5', '0.947', '0.25') },
+);
 
 const atom = fc.tuple(elementSymbol, count).map(([s, n]) => s + n);
 
@@ -40,11 +45,17 @@ export const formulaText = fc
   .tuple(
     formulaBody,
     fc.option(
-      fc.tuple(fc.constantFrom('·', '*'), fc.constantFrom('', '2', '5', '10'), formulaBody),
+      fc.tuple(
+        fc.constantFrom('·', '*'),
+        fc.constantFrom('', '2', '5', '10', '1/2', '0.5', '3/2'),
+        formulaBody,
+      ),
     ),
     charge,
   )
-  .map(([body, hydrate, z]) => body + (hydrate === null ? '' : hydrate.join('')) + z);
+  .map(([body, hydrate, z]) => body + (hydrate === null ? '' : hydrate.join('')) + z)
+  // A trailing (S), (Cr) or (Am) group is refused as a phase written in capitals.
+  .filter((text) => !/\((S|Cr|Am)1?\)1?$/.test(text));
 
 export const registryKey = fc
   .tuple(
@@ -67,6 +78,8 @@ export const phaseText = fc.oneof(
   fc.constant(''),
   fc.constantFrom('(g)', '(l)', '(cr)', '(s)', '(am)', '(aq)'),
   fc.tuple(fc.constantFrom('cr', 's', 'am'), modification).map(([p, m]) => `(${p},${m})`),
+  // Our own notation: a modification's name alone stands for its crystal.
+  modification.filter((m) => m !== 'I').map((m) => `(${m})`),
 );
 
 export const coefficientText = fc.oneof(
