@@ -14,7 +14,7 @@ import {
   withoutPosition,
 } from './equation-check';
 
-const balanced: ParseAnswer = {
+const balanced = {
   normalized: 'CO(g) + 1/2 O2(g) -> CO2(g)',
   balanced: true,
   imbalance: {},
@@ -22,11 +22,12 @@ const balanced: ParseAnswer = {
   unknownComposition: [],
   suggestion: null,
   species: [
-    { formula: 'CO', phase: 'g', modification: null, coefficient: '-1' },
-    { formula: 'O2', phase: 'g', modification: null, coefficient: '-1/2' },
-    { formula: 'CO2', phase: null, modification: null, coefficient: '1' },
+    { formula: 'CO', phase: 'g', phaseName: 'gas', modification: null, coefficient: '-1' },
+    { formula: 'O2', phase: 'g', phaseName: 'gas', modification: null, coefficient: '-1/2' },
+    { formula: 'CO2', phase: null, phaseName: null, modification: null, coefficient: '1' },
   ],
-};
+  hints: [],
+} as ParseAnswer;
 
 const unbalanced: ParseAnswer = {
   ...balanced,

@@ -7,15 +7,17 @@ import { filter, firstValueFrom } from 'rxjs';
 import { errorInterceptor } from '../../core/error-interceptor';
 import { EquationChecker } from './equation-checker';
 
-const answer = (normalized: string): ParseAnswer => ({
-  normalized,
-  balanced: true,
-  imbalance: {},
-  charge: '0',
-  unknownComposition: [],
-  suggestion: null,
-  species: [],
-});
+const answer = (normalized: string) =>
+  ({
+    normalized,
+    balanced: true,
+    imbalance: {},
+    charge: '0',
+    unknownComposition: [],
+    suggestion: null,
+    hints: [],
+    species: [],
+  }) as ParseAnswer;
 
 describe('EquationChecker', () => {
   let checker: EquationChecker;

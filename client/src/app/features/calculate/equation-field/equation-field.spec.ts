@@ -28,16 +28,18 @@ class Host {
 const pause = (ms = EQUATION_CHECK_DEBOUNCE_MS + 50) =>
   new Promise((resolve) => setTimeout(resolve, ms));
 
-const parsed = (overrides: Partial<ParsedEquation>): ParsedEquation => ({
-  normalized: 'CO(g) + 1/2 O2(g) -> CO2(g)',
-  balanced: true,
-  imbalance: {},
-  charge: '0',
-  unknownComposition: [],
-  suggestion: null,
-  species: [],
-  ...overrides,
-});
+const parsed = (overrides: Partial<ParsedEquation>): ParsedEquation =>
+  ({
+    normalized: 'CO(g) + 1/2 O2(g) -> CO2(g)',
+    balanced: true,
+    imbalance: {},
+    charge: '0',
+    unknownComposition: [],
+    suggestion: null,
+    hints: [],
+    species: [],
+    ...overrides,
+  }) as ParsedEquation;
 
 describe('EquationField', () => {
   let fixture: ComponentFixture<Host>;
@@ -199,7 +201,7 @@ describe('EquationField', () => {
           { formula: 'H2', phase: 'g', modification: null, coefficient: '-1' },
           { formula: 'O2', phase: 'g', modification: null, coefficient: '-1/2' },
           { formula: 'H2O', phase: null, modification: null, coefficient: '1' },
-        ],
+        ] as ParsedEquation['species'],
       }),
     );
     expect(hint()?.getAttribute('data-check')).toBe('invalid');

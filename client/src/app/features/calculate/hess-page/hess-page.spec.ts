@@ -68,22 +68,19 @@ const fuelGasAnswer: HessAnswer = {
 };
 
 /** A parse answer for any equation: balanced, every term with a phase unless told otherwise. */
-const parsedAs = (equation: string, phase: string | null = 'g'): ParseAnswer => ({
-  normalized: equation,
-  balanced: true,
-  imbalance: {},
-  charge: '0',
-  unknownComposition: [],
-  suggestion: null,
-  species: [
-    {
-      formula: 'H2O',
-      phase: phase as ParseAnswer['species'][number]['phase'],
-      modification: null,
-      coefficient: '1',
-    },
-  ],
-});
+const parsedAs = (equation: string, phase: string | null = 'g') =>
+  ({
+    normalized: equation,
+    balanced: true,
+    imbalance: {},
+    charge: '0',
+    unknownComposition: [],
+    suggestion: null,
+    hints: [],
+    species: [
+      { formula: 'H2O', phase, phaseName: phase && 'gas', modification: null, coefficient: '1' },
+    ],
+  }) as ParseAnswer;
 
 describe('HessPage', () => {
   let fixture: ComponentFixture<HessPage>;
