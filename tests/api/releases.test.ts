@@ -115,6 +115,7 @@ describe('releases', () => {
       await releases.createDraft(actor, '2026.3');
       await expect(releases.publish({ id: reader }, '2026.3')).rejects.toMatchObject({
         status: 403,
+        code: 'role_revoked',
       });
       const still = await one(`select status from releases where version = '2026.3'`);
       expect(still.status).toBe('draft');

@@ -1,8 +1,7 @@
 import { RELEASE_VERSION_PATTERN, type UserRow } from '../../../../schema';
 import { pgErrorCode, type Database, type Tx } from '../../db/client';
-import { AppError, forbidden } from '../../lib/app-error';
+import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit-repository';
-import { hasRole } from '../users/roles';
 import { usersRepository } from '../users/users-repository';
 import { buildSnapshot, type ReleaseSnapshot } from './release-snapshot';
 import { releasesRepository, type ReleaseCounts, type ReleaseListRow } from './releases-repository';
@@ -97,8 +96,7 @@ export function createReleasesService(db: Database, now: () => number = Date.now
    * ago cannot publish.
    */
   async function publishIn(tx: Tx, actor: Actor, version: string) {
-    const user = await usersRepository.findByIdForUpdate(tx, actor.id);
-    if (!user || !hasRole(user.role, 'editor')) throw forbidden('Publishing needs the editor role');
+    const user = await usersRepository.assertActorRoleLocked(tx, actor.id, 'editor');
     const release = await releasesRepository.lockByVersion(tx, version);
     if (!release) throw unknownRelease(version);
     if (release.status === 'published') {
