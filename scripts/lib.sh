@@ -159,6 +159,7 @@ ensure_client_build() {
   local index="$ROOT/dist/client/browser/index.html"
   if [ ! -f "$index" ] || [ -n "$(find "$ROOT/client" "$ROOT/angular.json" "$ROOT/package-lock.json" -newer "$index" -type f -print -quit)" ]; then
     log "building the client"
-    (cd "$ROOT" && npx ng build --configuration production >/dev/null) || die "client build failed"
+    # One build at a time per checkout: two runs writing dist/ together would mix their files.
+    (cd "$ROOT" && flock "$ROOT/.angular-build.lock" npx ng build --configuration production >/dev/null) || die "client build failed"
   fi
 }
