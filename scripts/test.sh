@@ -33,16 +33,22 @@ export TEST_ADMIN_DATABASE_URL; TEST_ADMIN_DATABASE_URL="$(database_url postgres
 [ "${SKIP_CLIENT_BUILD:-0}" = 1 ] || ensure_client_build
 export CLIENT_DIST="$ROOT/dist/client/browser"
 
-# The fake GitHub as its own process (it is an ES module, which CommonJS Jest cannot load).
+# The fakes of hosted services as their own process (some are ES modules, which CommonJS Jest
+# cannot load). It prints `NAME=url` per fake, then `ready`; each becomes an exported variable.
 fake_log="$(mktemp)"
 FAKE_GITHUB_PORT=0 "$ROOT/node_modules/.bin/tsx" server/src/fakes/main.ts > "$fake_log" 2>&1 &
 fake_pid=$!
 trap 'kill $fake_pid 2>/dev/null; cluster_discard; rm -f "$fake_log"' EXIT
-for _ in $(seq 1 100); do grep -q '^http' "$fake_log" && break; sleep 0.1; done
-export FAKE_GITHUB_URL; FAKE_GITHUB_URL="$(grep -m1 '^http' "$fake_log")" || die "fake GitHub did not start: $(cat "$fake_log")"
+for _ in $(seq 1 300); do grep -q '^ready$' "$fake_log" && break; kill -0 "$fake_pid" 2>/dev/null || break; sleep 0.1; done
+grep -q '^ready$' "$fake_log" || die "the local fakes did not start: $(cat "$fake_log")"
+while IFS='=' read -r name url; do
+  [[ "$name" =~ ^FAKE_[A-Z0-9_]+_URL$ ]] && export "$name=$url"
+done < "$fake_log"
 
 export NODE_ENV=test LOG_LEVEL=silent
+# A focused run writes its own results file, so runs in parallel do not overwrite each other's.
 results="$ROOT/artifacts/jest-results.json"
+[ $# -eq 0 ] || results="$ROOT/artifacts/jest-results-$$.json"
 mkdir -p "$(dirname "$results")"
 set +e
 npx jest --ci --json --outputFile="$results" "$@"

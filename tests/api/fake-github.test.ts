@@ -27,7 +27,7 @@ async function startFakeGithub(callbackUrls?: string[]): Promise<FakeProcess> {
   const url = await new Promise<string>((resolve, reject) => {
     child.stdout.on('data', (chunk: Buffer) => {
       output += chunk.toString();
-      const m = /^(http\S+)/m.exec(output);
+      const m = /^FAKE_GITHUB_URL=(http\S+)$/m.exec(output);
       if (m) resolve(m[1]);
     });
     child.on('exit', () => reject(new Error(`fake exited: ${output}`)));

@@ -1,16 +1,29 @@
-// Runs the fake GitHub alone (used by the test runner): prints its URL, stops on SIGINT/SIGTERM.
-// FAKE_GITHUB_CALLBACK_URLS (comma-separated) pins the callback URLs it will send codes to.
+// Runs the local fakes of hosted services for the test runner: prints one `NAME=url` line per
+// fake (the environment variable the app reads), then `ready`; stops on SIGINT/SIGTERM.
+// FAKE_GITHUB_CALLBACK_URLS (comma-separated) pins the callback URLs the fake GitHub sends codes to.
 import { startFakeGithub } from './github-fake';
 
-async function main(): Promise<void> {
-  const port = Number(process.env.FAKE_GITHUB_PORT ?? 0);
+interface RunningFake {
+  env: string;
+  url: string;
+  stop(): Promise<void>;
+}
+
+/** Every fake, each on a free loopback port. Add a fake here and its variable reaches the tests. */
+async function startAll(): Promise<RunningFake[]> {
   const callbackUrls = (process.env.FAKE_GITHUB_CALLBACK_URLS ?? '').split(',').filter(Boolean);
-  const fake = await startFakeGithub({
-    port,
+  const github = await startFakeGithub({
+    port: Number(process.env.FAKE_GITHUB_PORT ?? 0),
     callbackUrls: callbackUrls.length ? callbackUrls : undefined,
   });
-  process.stdout.write(`${fake.url}\n`);
-  const stop = () => void fake.stop().then(() => process.exit(0));
+  return [{ env: 'FAKE_GITHUB_URL', url: github.url, stop: () => github.stop() }];
+}
+
+async function main(): Promise<void> {
+  const fakes = await startAll();
+  for (const fake of fakes) process.stdout.write(`${fake.env}=${fake.url}\n`);
+  process.stdout.write('ready\n');
+  const stop = () => void Promise.all(fakes.map((f) => f.stop())).then(() => process.exit(0));
   process.on('SIGINT', stop);
   process.on('SIGTERM', stop);
 }
