@@ -5,3 +5,4 @@ export * from './species';
 export * from './sources';
 export * from './revisions';
 export * from './releases';
+export * from './outbox';

@@ -1,4 +1,13 @@
-import { bigint, index, integer, pgEnum, pgTable, text, timestamp } from 'drizzle-orm/pg-core';
+import {
+  bigint,
+  boolean,
+  index,
+  integer,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+} from 'drizzle-orm/pg-core';
 
 /** Roles in increasing order of privilege; the order is used by the role guard. */
 export const ROLES = ['reader', 'curator', 'editor', 'admin'] as const;
@@ -18,6 +27,8 @@ export const users = pgTable(
     role: userRole().notNull().default('reader'),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     lastSignInAt: timestamp({ withTimezone: true }),
+    /** E-mail about proposals (submitted, decided, commented); each user can turn it off. */
+    emailNotifications: boolean().notNull().default(true),
   },
   (t) => [index('users_login_idx').on(t.login)],
 );
