@@ -6,3 +6,5 @@ export * from './sources';
 export * from './revisions';
 export * from './releases';
 export * from './outbox';
+export * from './tokens';
+export * from './watchlists';
