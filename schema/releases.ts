@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm';
 import {
+  type AnyPgColumn,
   check,
   foreignKey,
   index,
@@ -33,6 +34,11 @@ export const releases = pgTable(
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     publishedBy: integer().references(() => users.id),
     publishedAt: timestamp({ withTimezone: true }),
+    /**
+     * The newest published release when this one was drafted (null for the first): its changes
+     * are computed against it, and it may only publish while that is still the newest.
+     */
+    baseReleaseId: integer().references((): AnyPgColumn => releases.id),
   },
   (t) => [
     check('releases_version_format', sql`${t.version} ~ '^[0-9]{4}\\.[0-9]{1,3}(-[a-z0-9]+)?$'`),
@@ -69,6 +75,38 @@ export const releaseEntries = pgTable(
     index('release_entries_revision_idx').on(t.revisionId),
     index('release_entries_species_phase_idx').on(t.speciesPhaseId),
   ],
+);
+
+/** Changes an editor left out of a draft (by the revision that makes the change). */
+export const releaseExclusions = pgTable(
+  'release_exclusions',
+  {
+    releaseId: integer()
+      .notNull()
+      .references(() => releases.id),
+    revisionId: integer()
+      .notNull()
+      .references(() => revisions.id),
+    excludedBy: integer().references(() => users.id),
+    excludedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.releaseId, t.revisionId] })],
+);
+
+/** Derived values an editor knowingly publishes stale in a draft (their inputs changed). */
+export const releaseAcknowledgements = pgTable(
+  'release_acknowledgements',
+  {
+    releaseId: integer()
+      .notNull()
+      .references(() => releases.id),
+    revisionId: integer()
+      .notNull()
+      .references(() => revisions.id),
+    acknowledgedBy: integer().references(() => users.id),
+    acknowledgedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.releaseId, t.revisionId] })],
 );
 
 export type ReleaseRow = typeof releases.$inferSelect;
