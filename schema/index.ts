@@ -8,3 +8,4 @@ export * from './releases';
 export * from './outbox';
 export * from './tokens';
 export * from './watchlists';
+export * from './proposals';
