@@ -9,3 +9,4 @@ export * from './outbox';
 export * from './tokens';
 export * from './watchlists';
 export * from './proposals';
+export * from './source-documents';
