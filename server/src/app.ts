@@ -146,8 +146,11 @@ function githubEndpoints(config: AppConfig, fakeGithubUrl?: string | null): Gith
 /** The built Angular app, with the SPA fallback for every GET outside /api and /auth. */
 function serveClient(app: Express, dist: string): void {
   const index = path.join(dist, 'index.html');
-  app.use(express.static(dist, { index: false, maxAge: '1h' }));
-  app.get(/^\/(?!(api|auth)(\/|$))/, (_req, res) => {
+  const clientPath = /^\/(?!(api|auth)(\/|$))/;
+  const files = express.static(dist, { index: false, maxAge: '1h' });
+  // API calls never look for a file first: no disk lookup on the hot read routes.
+  app.use((req, res, next) => (clientPath.test(req.path) ? files(req, res, next) : next()));
+  app.get(clientPath, (_req, res) => {
     if (!fs.existsSync(index)) {
       res
         .status(503)
