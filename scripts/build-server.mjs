@@ -12,13 +12,14 @@ const common = {
   sourcemap: true,
 };
 
-// The local sign-in stand-in is development code (its oauth2-mock-server is a development
-// dependency): main.js only loads the separate github-fake.js when asked to (FAKE_SIGN_IN).
+// The local stand-ins are development code (oauth2-mock-server, smtp-server and mailparser are
+// development dependencies): main.js only loads the separate github-fake.js when asked to
+// (FAKE_SIGN_IN), and smtp-fake.js never in production.
 const fakeApart = {
-  name: 'fake-github-apart',
+  name: 'fakes-apart',
   setup(b) {
-    b.onResolve({ filter: /\/fakes\/github-fake$/ }, () => ({
-      path: './github-fake.js',
+    b.onResolve({ filter: /\/fakes\/(github|smtp)-fake$/ }, (args) => ({
+      path: `./${args.path.split('/').pop()}.js`,
       external: true,
     }));
   },
@@ -34,4 +35,9 @@ await build({
   ...common,
   entryPoints: ['server/src/fakes/github-fake.ts'],
   outfile: `${outdir}/github-fake.js`,
+});
+await build({
+  ...common,
+  entryPoints: ['server/src/fakes/smtp-fake.ts'],
+  outfile: `${outdir}/smtp-fake.js`,
 });

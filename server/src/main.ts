@@ -1,4 +1,5 @@
-// Starts Thalpos: migrations, demo data, the fake GitHub when needed, then the HTTP server.
+// Starts Thalpos: migrations, demo data, the fake GitHub and fake SMTP server when needed, the
+// outbox worker, then the HTTP server.
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { loadConfig, type AppConfig } from './config/env';
@@ -8,6 +9,7 @@ import { runMigrations } from './db/migrate';
 import { seedDemoData } from './db/seed-demo';
 import type { FakeGithub } from './fakes/github-fake';
 import { createLogger } from './lib/logger';
+import { startMail } from './modules/mail/mail-startup';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -36,6 +38,8 @@ async function main(): Promise<void> {
     logger.info({ url: fake.url }, 'local fake GitHub sign-in provider started (loopback only)');
   }
 
+  const mail = await startMail({ config, db: database.db, logger });
+
   const app = createApp({ config, database, logger, fakeGithubUrl: fake?.url });
   const server = app.listen(config.port, config.host, () => {
     const { port } = server.address() as AddressInfo;
@@ -50,6 +54,7 @@ async function main(): Promise<void> {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     server.close(async () => {
+      await mail.stop();
       await fake?.stop();
       await database.pool.end();
       process.exit(0);

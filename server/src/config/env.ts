@@ -21,6 +21,23 @@ const EnvSchema = z
     FAKE_GITHUB_PORT: z.coerce.number().int().min(0).max(65535).default(3001),
     /** GitHub logins that become admin at their first sign-in (bootstraps a real deployment). */
     ADMIN_LOGINS: z.string().default(''),
+    /** The site's address as users reach it; links in e-mail point here. Default: HOST and PORT. */
+    PUBLIC_URL: z.string().url().optional(),
+    /** Outgoing mail relay, e.g. smtp://mail.example.org:587; unset outside production: a local fake. */
+    SMTP_URL: z
+      .string()
+      .url()
+      .refine((u) => !/^[a-z]+:\/\/([^@/]*@)?(0\.0\.0\.0|\[::\])(:|\/|$)/i.test(u), {
+        message: 'must name a host, not 0.0.0.0',
+      })
+      .optional(),
+    /** The From header of every message. */
+    MAIL_FROM: z.string().min(3).default('Thalpos <no-reply@thalpos.invalid>'),
+    /** An already running fake SMTP server (the test runner starts one of its own). */
+    FAKE_SMTP_URL: z.string().url().optional(),
+    /** Ports of the fake SMTP server and its message listing that `npm start` runs in-process. */
+    FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+    FAKE_SMTP_API_PORT: z.coerce.number().int().min(0).max(65535).default(3002),
     CLIENT_DIST: z.string().default(DEFAULT_CLIENT_DIST),
     LOG_LEVEL: z
       .enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent'])
@@ -69,6 +86,15 @@ export interface AppConfig {
   github: { clientId: string; clientSecret: string } | null;
   fakeGithubUrl: string | null;
   fakeGithubPort: number;
+  publicUrl: string;
+  mail: {
+    /** The real relay, or null when a fake stands in (or, in production, mail waits in the outbox). */
+    smtpUrl: string | null;
+    fakeSmtpUrl: string | null;
+    fakeSmtpPort: number;
+    fakeSmtpApiPort: number;
+    from: string;
+  };
   adminLogins: string[];
   clientDist: string;
   logLevel: Env['LOG_LEVEL'];
@@ -100,6 +126,14 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
         : null,
     fakeGithubUrl: e.FAKE_GITHUB_URL ?? null,
     fakeGithubPort: e.FAKE_GITHUB_PORT,
+    publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/+$/, ''),
+    mail: {
+      smtpUrl: e.SMTP_URL ?? null,
+      fakeSmtpUrl: e.FAKE_SMTP_URL ?? null,
+      fakeSmtpPort: e.FAKE_SMTP_PORT,
+      fakeSmtpApiPort: e.FAKE_SMTP_API_PORT,
+      from: e.MAIL_FROM,
+    },
     adminLogins: e.ADMIN_LOGINS.split(',')
       .map((s) => s.trim())
       .filter(Boolean),

@@ -2,6 +2,7 @@
 // fake (the environment variable the app reads), then `ready`; stops on SIGINT/SIGTERM.
 // FAKE_GITHUB_CALLBACK_URLS (comma-separated) pins the callback URLs the fake GitHub sends codes to.
 import { startFakeGithub } from './github-fake';
+import { startFakeSmtp } from './smtp-fake';
 
 interface RunningFake {
   env: string;
@@ -16,7 +17,13 @@ async function startAll(): Promise<RunningFake[]> {
     port: Number(process.env.FAKE_GITHUB_PORT ?? 0),
     callbackUrls: callbackUrls.length ? callbackUrls : undefined,
   });
-  return [{ env: 'FAKE_GITHUB_URL', url: github.url, stop: () => github.stop() }];
+  const smtp = await startFakeSmtp();
+  return [
+    { env: 'FAKE_GITHUB_URL', url: github.url, stop: () => github.stop() },
+    { env: 'FAKE_SMTP_URL', url: smtp.url, stop: () => smtp.stop() },
+    // The fake SMTP server's message listing (GET /messages), for tests that read what arrived.
+    { env: 'FAKE_SMTP_API_URL', url: smtp.apiUrl, stop: async () => undefined },
+  ];
 }
 
 async function main(): Promise<void> {
