@@ -13,6 +13,7 @@ import { errorHandler } from './middleware/error-handler';
 import { notFoundHandler } from './middleware/not-found';
 import { perMinuteLimit } from './middleware/rate-limit';
 import { requestId } from './middleware/request-id';
+import { createAuditModule } from './modules/audit/audit-router';
 import { createAuthModule } from './modules/auth/auth-module';
 import { REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
 import { createCalculateModule } from './modules/calculate/calculate-router';
@@ -65,6 +66,7 @@ export function createApp(deps: AppDeps): Express {
     rateLimitPerMinute: config.authRateLimit,
     verifyToken: deps.verifyToken ?? noTokensYet,
   });
+  const audit = createAuditModule({ db: database.db });
   const calculate = createCalculateModule();
   const releases = createReleasesModule({ db: database.db });
   const species = createSpeciesModule({ db: database.db, releases: releases.service });
@@ -86,6 +88,7 @@ export function createApp(deps: AppDeps): Express {
       config.apiRateLimitSignedIn,
     ),
     users.router,
+    audit.router,
     calculate.router,
     releases.router,
     reactions.router,
