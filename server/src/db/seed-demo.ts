@@ -1,5 +1,6 @@
 import { DEMO_ACCOUNTS } from '../fakes/demo-accounts';
 import { recordAudits } from '../modules/audit/audit-repository';
+import { seedUploadDemoSource } from '../modules/uploads/upload-demo-source';
 import { usersRepository } from '../modules/users/users-repository';
 import type { Database } from './client';
 
@@ -31,5 +32,6 @@ export async function seedDemoData(db: Database): Promise<void> {
         after: { login: u.login, role: u.role },
       })),
     );
+    await seedUploadDemoSource(tx);
   });
 }
