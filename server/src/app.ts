@@ -7,7 +7,7 @@ import { defaultAdapters, type Adapters } from './adapters';
 import type { AppConfig } from './config/env';
 import type { DbHandle } from './db/client';
 import type { Logger } from './lib/logger';
-import { noTokensYet, type TokenVerifier } from './middleware/bearer-auth';
+import type { TokenVerifier } from './middleware/bearer-auth';
 import { noCookieOnCacheable, noStore } from './middleware/cache-control';
 import { errorHandler } from './middleware/error-handler';
 import { notFoundHandler } from './middleware/not-found';
@@ -22,7 +22,9 @@ import { createSearchModule } from './modules/search/search-router';
 import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
 import { createReleasesModule } from './modules/releases/releases-router';
+import { createTokensModule } from './modules/tokens/tokens-router';
 import { createUsersModule } from './modules/users/users-router';
+import { createWatchlistsModule } from './modules/watchlists/watchlists-router';
 import { thermoJsonReplacer } from './thermo';
 
 export interface AppDeps {
@@ -33,7 +35,7 @@ export interface AppDeps {
   fakeGithubUrl?: string | null;
   /** Outside services (clock; later mailer, file store); defaults are the real ones. */
   adapters?: Partial<Adapters>;
-  /** Resolves API tokens to users; until the tokens feature, every token is unknown. */
+  /** Resolves API tokens to users; defaults to the tokens module's own verifier. */
   verifyToken?: TokenVerifier;
 }
 
@@ -56,6 +58,11 @@ export function createApp(deps: AppDeps): Express {
   // Modules: each owns its routes, body parser and size limit.
   const health = createHealthModule({ pool: database.pool });
   const users = createUsersModule({ db: database.db, adminLogins: config.adminLogins });
+  const tokens = createTokensModule({
+    db: database.db,
+    clock: adapters.clock,
+    hashKey: config.tokenHashKey,
+  });
   const auth = createAuthModule({
     pool: database.pool,
     users: users.service,
@@ -64,7 +71,7 @@ export function createApp(deps: AppDeps): Express {
     sessionSecret: config.sessionSecret,
     allowLoginHint: !config.github,
     rateLimitPerMinute: config.authRateLimit,
-    verifyToken: deps.verifyToken ?? noTokensYet,
+    verifyToken: deps.verifyToken ?? tokens.verifyToken,
   });
   const audit = createAuditModule({ db: database.db });
   const calculate = createCalculateModule();
@@ -72,6 +79,7 @@ export function createApp(deps: AppDeps): Express {
   const species = createSpeciesModule({ db: database.db, releases: releases.service });
   const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
+  const watchlists = createWatchlistsModule({ db: database.db, reactions: reactions.service });
 
   // Before any session: health answers while the database is down, and static files and the
   // SPA page never carry (or renew) a session cookie, so shared caches may keep them.
@@ -86,6 +94,7 @@ export function createApp(deps: AppDeps): Express {
       config.apiRateLimit,
       'Too many requests; slow down and try again shortly',
       config.apiRateLimitSignedIn,
+      config.apiRateLimitToken,
     ),
     users.router,
     audit.router,
@@ -94,6 +103,8 @@ export function createApp(deps: AppDeps): Express {
     reactions.router,
     species.router,
     search.router,
+    tokens.router,
+    watchlists.router,
   );
   app.use(['/api', '/auth'], notFoundHandler);
   app.use(errorHandler);

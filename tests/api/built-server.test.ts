@@ -46,6 +46,7 @@ describe('built server', () => {
       DATABASE_URL: db.url,
       MIGRATION_DATABASE_URL: db.ownerUrl,
       SESSION_SECRET: 'a-long-enough-secret-for-this-test',
+      TOKEN_HASH_KEY: 'a-token-hash-key-for-this-test-0123456789',
       LOG_LEVEL: 'warn',
       LOADED_MODULES_FILE: loadedFile,
       ...extraEnv,

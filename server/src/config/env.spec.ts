@@ -22,12 +22,13 @@ describe('loadConfig', () => {
 
   it('requires a session secret and real GitHub credentials in production', () => {
     expect(() => loadConfig({ ...base, NODE_ENV: 'production' })).toThrow(
-      /SESSION_SECRET[\s\S]*GITHUB_CLIENT_ID/,
+      /SESSION_SECRET[\s\S]*TOKEN_HASH_KEY[\s\S]*GITHUB_CLIENT_ID/,
     );
     const c = loadConfig({
       ...base,
       NODE_ENV: 'production',
       SESSION_SECRET: 'a-long-enough-secret-value',
+      TOKEN_HASH_KEY: 'a-token-hash-key-of-32-characters-or-more',
       GITHUB_CLIENT_ID: 'id',
       GITHUB_CLIENT_SECRET: 'secret',
     });
@@ -40,9 +41,16 @@ describe('loadConfig', () => {
       ...base,
       NODE_ENV: 'production',
       SESSION_SECRET: 'a-long-enough-secret-value',
+      TOKEN_HASH_KEY: 'a-token-hash-key-of-32-characters-or-more',
       FAKE_SIGN_IN: '1',
     });
     expect(c.github).toBeNull();
+  });
+
+  it('keeps the token limit at or above the signed-in limit', () => {
+    const c = loadConfig({ ...base, API_RATE_LIMIT_SIGNED_IN: '9000', API_RATE_LIMIT_TOKEN: '10' });
+    expect(c.apiRateLimitToken).toBe(9000);
+    expect(loadConfig(base).apiRateLimitToken).toBe(6000);
   });
 
   it('refuses half a set of GitHub credentials', () => {

@@ -51,10 +51,17 @@ const EnvSchema = z
     /** Requests per minute to /api/v1: per address when anonymous, per user when signed in. */
     API_RATE_LIMIT: z.coerce.number().int().positive().default(600),
     API_RATE_LIMIT_SIGNED_IN: z.coerce.number().int().positive().default(2400),
+    /** Requests per minute per API token (never below the signed-in limit). */
+    API_RATE_LIMIT_TOKEN: z.coerce.number().int().positive().default(6000),
+    /** Key of the HMAC that API tokens are stored under; changing it invalidates every token. */
+    TOKEN_HASH_KEY: z.string().min(32).optional(),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === 'production' && !env.SESSION_SECRET) {
       ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'required in production' });
+    }
+    if (env.NODE_ENV === 'production' && !env.TOKEN_HASH_KEY) {
+      ctx.addIssue({ code: 'custom', path: ['TOKEN_HASH_KEY'], message: 'required in production' });
     }
     const fakeAllowed = env.FAKE_SIGN_IN ?? env.NODE_ENV !== 'production';
     if (!env.GITHUB_CLIENT_ID && !fakeAllowed) {
@@ -103,6 +110,8 @@ export interface AppConfig {
   authRateLimit: number;
   apiRateLimit: number;
   apiRateLimitSignedIn: number;
+  apiRateLimitToken: number;
+  tokenHashKey: string;
 }
 
 /** Parses the environment once at start-up; a bad value stops the process with a clear message. */
@@ -144,5 +153,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
     authRateLimit: e.AUTH_RATE_LIMIT,
     apiRateLimit: e.API_RATE_LIMIT,
     apiRateLimitSignedIn: Math.max(e.API_RATE_LIMIT_SIGNED_IN, e.API_RATE_LIMIT),
+    apiRateLimitToken: Math.max(
+      e.API_RATE_LIMIT_TOKEN,
+      e.API_RATE_LIMIT_SIGNED_IN,
+      e.API_RATE_LIMIT,
+    ),
+    tokenHashKey: e.TOKEN_HASH_KEY ?? 'thalpos-development-token-key-not-for-production',
   };
 }

@@ -1,13 +1,12 @@
+import { createHash } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
 import { AppError } from '../lib/app-error';
 
 /**
  * Looks a presented API token up: the user it stands for, or null when it is unknown, expired
- * or revoked. API tokens arrive with the releases feature; until then no token is valid.
+ * or revoked (the tokens module supplies the real one).
  */
 export type TokenVerifier = (token: string) => Promise<Express.User | null>;
-
-export const noTokensYet: TokenVerifier = async () => null;
 
 const BEARER = /^Bearer[ \t]+([\x21-\x7e]{1,512})[ \t]*$/i;
 
@@ -28,12 +27,18 @@ export function bearerAuth(verify: TokenVerifier): RequestHandler {
     }
     req.user = user;
     res.locals.authenticatedBy = 'bearer';
+    // Names the token (for its own rate-limit bucket) without keeping the secret around.
+    res.locals.bearerKey = createHash('sha256').update(token!).digest('base64url').slice(0, 22);
     next();
   };
 }
 
 /** True when a verified bearer token, not a cookie, authenticated this request. */
 export const viaBearerToken = (res: Response): boolean => res.locals.authenticatedBy === 'bearer';
+
+/** A stable, non-secret key of the token that authenticated this request, if one did. */
+export const bearerKey = (res: Response): string | undefined =>
+  viaBearerToken(res) ? (res.locals.bearerKey as string) : undefined;
 
 /** Runs `handler` only for requests that a bearer token did not authenticate. */
 export function unlessBearer(handler: RequestHandler): RequestHandler {

@@ -1,10 +1,12 @@
-import type { Request } from 'express';
+import type { Request, Response } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { AppError } from '../lib/app-error';
+import { bearerKey } from './bearer-auth';
 
 /**
- * Per-minute limit. A signed-in caller (cookie or token) has a bucket of their own with
- * `signedInLimit`; anonymous callers share one per address (an IPv6 /56 counts as one address).
+ * Per-minute limit. Each API token has a bucket of its own with `tokenLimit`; a signed-in
+ * caller (cookie session) has one per user with `signedInLimit`; anonymous callers share one
+ * per address (an IPv6 /56 counts as one address).
  * A refusal is the usual JSON error (429 `rate_limited`) with `Retry-After` and the standard
  * `RateLimit` / `RateLimit-Policy` headers.
  */
@@ -12,12 +14,17 @@ export function perMinuteLimit(
   anonymousLimit: number,
   message: string,
   signedInLimit: number = anonymousLimit,
+  tokenLimit: number = signedInLimit,
 ) {
   return rateLimit({
     windowMs: 60_000,
-    limit: (req: Request) => (req.user ? signedInLimit : anonymousLimit),
-    keyGenerator: (req: Request) =>
-      req.user ? `user:${req.user.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`,
+    limit: (req: Request, res: Response) =>
+      bearerKey(res) ? tokenLimit : req.user ? signedInLimit : anonymousLimit,
+    keyGenerator: (req: Request, res: Response) => {
+      const token = bearerKey(res);
+      if (token) return `token:${token}`;
+      return req.user ? `user:${req.user.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`;
+    },
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: () => {

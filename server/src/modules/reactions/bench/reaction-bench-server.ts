@@ -16,6 +16,7 @@ const config = loadConfig({
   // The limiter still runs on every request; only its ceiling is out of the way.
   API_RATE_LIMIT: '1000000000',
   SESSION_SECRET: 'benchmark-only-secret-0123456789abcdef',
+  TOKEN_HASH_KEY: 'benchmark-only-token-key-0123456789abcdef',
   FAKE_GITHUB_URL: 'http://127.0.0.1:9',
   FAKE_SIGN_IN: '1',
 });
