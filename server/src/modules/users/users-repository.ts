@@ -61,6 +61,15 @@ export const usersRepository = {
     return actor;
   },
 
+  async setEmailNotifications(tx: Tx, id: number, on: boolean): Promise<UserRow> {
+    const [row] = await tx
+      .update(users)
+      .set({ emailNotifications: on })
+      .where(eq(users.id, id))
+      .returning();
+    return row;
+  },
+
   async setRole(tx: Tx, id: number, role: Role): Promise<UserRow> {
     const [row] = await tx.update(users).set({ role }).where(eq(users.id, id)).returning();
     return row;

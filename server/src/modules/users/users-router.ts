@@ -4,10 +4,13 @@ import { requireRole, requireSignIn } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
 import {
   RoleChangeBody,
+  SettingsPatch,
+  toSettings,
   toUserView,
   UserIdParams,
   type MeAnswer,
   type RoleChangeAnswer,
+  type SettingsAnswer,
   type UsersListAnswer,
 } from './users-schemas';
 import { createUsersService, type UsersService } from './users-service';
@@ -17,11 +20,21 @@ const BODY_LIMIT = '100kb';
 
 export function usersRouter(users: UsersService): Router {
   const router = Router();
-  router.use('/users', express.json({ limit: BODY_LIMIT }));
+  router.use(['/users', '/me/settings'], express.json({ limit: BODY_LIMIT }));
 
   router.get('/me', requireSignIn, (req, res) => {
     const { createdAt: _createdAt, ...me } = toUserView(req.user!);
     res.json(me satisfies MeAnswer);
+  });
+
+  router.get('/me/settings', requireSignIn, async (req, res) => {
+    res.json(toSettings(await users.settings(req.user!.id)) satisfies SettingsAnswer);
+  });
+
+  const changeSettings = validate({ body: SettingsPatch });
+  router.patch('/me/settings', requireSignIn, changeSettings, async (req, res) => {
+    const { body } = changeSettings.input(res);
+    res.json(toSettings(await users.updateSettings(req.user!.id, body)) satisfies SettingsAnswer);
   });
 
   router.get('/users', requireRole('admin'), async (_req, res) => {
@@ -57,7 +70,7 @@ export interface UsersModuleDeps {
   adminLogins: readonly string[];
 }
 
-/** Users and roles: `/me`, the admin's user list and role changes (mounted under /api/v1). */
+/** Users and roles: `/me`, own settings, the admin's user list and role changes (under /api/v1). */
 export function createUsersModule({ db, adminLogins }: UsersModuleDeps) {
   const service = createUsersService(db, adminLogins);
   return { service, router: usersRouter(service) };

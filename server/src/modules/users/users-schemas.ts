@@ -14,6 +14,23 @@ export const Role = z.enum(ROLES);
 export const UserIdParams = IdParams;
 export const RoleChangeBody = z.object({ role: Role }).strict();
 
+// ---- GET, PATCH /api/v1/me/settings ----
+
+/** What a user may change about their own account. */
+export const SettingsPatch = z.object({ emailNotifications: z.boolean() }).strict();
+/** The user's settings, and the address notifications go to (from GitHub; read-only here). */
+export const SettingsAnswer = z.object({
+  emailNotifications: z.boolean(),
+  email: z.string().nullable(),
+});
+export type SettingsPatch = z.infer<typeof SettingsPatch>;
+export type SettingsAnswer = z.infer<typeof SettingsAnswer>;
+
+export const toSettings = (u: UserRow): SettingsAnswer => ({
+  emailNotifications: u.emailNotifications,
+  email: u.email,
+});
+
 // ---- answers ----
 
 export const UserView = z.object({

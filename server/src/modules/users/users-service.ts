@@ -56,6 +56,36 @@ export function createUsersService(db: Database, adminLogins: readonly string[])
       }
     },
 
+    /** The caller's own settings, read fresh (the session's copy may be older). */
+    async settings(userId: number): Promise<UserRow> {
+      const user = await usersRepository.findById(db, userId);
+      if (!user) throw notFound(`User ${userId}`);
+      return user;
+    },
+
+    /** Changes the caller's own settings and audits the change in one transaction. */
+    updateSettings(userId: number, patch: { emailNotifications: boolean }): Promise<UserRow> {
+      return db.transaction(async (tx) => {
+        const current = await usersRepository.findByIdForUpdate(tx, userId);
+        if (!current) throw notFound(`User ${userId}`);
+        if (current.emailNotifications === patch.emailNotifications) return current;
+        const updated = await usersRepository.setEmailNotifications(
+          tx,
+          userId,
+          patch.emailNotifications,
+        );
+        await recordAudit(tx, {
+          actorId: userId,
+          action: 'user.settings_changed',
+          entityType: 'user',
+          entityId: userId,
+          before: { emailNotifications: current.emailNotifications },
+          after: { emailNotifications: updated.emailNotifications },
+        });
+        return updated;
+      });
+    },
+
     /** Sign-in: a new user is a reader unless bootstrapped as admin by configuration. */
     signIn(identity: GithubIdentity): Promise<UserRow> {
       return db.transaction(async (tx) => {
