@@ -2,15 +2,22 @@ import { Router } from 'express';
 import { validate } from '../../middleware/validate';
 import type { Database } from '../../db/client';
 import { sendReleaseAnswer } from './release-http-cache';
+import { EXPORT_FORMATS } from './release-export-writers';
+import { exportUrl, releaseExportsRouter } from './release-exports-router';
+import { createReleaseExportsService, type ReleaseExportsService } from './release-exports-service';
 import {
   ReleaseParams,
   toReleaseManifest,
   toReleaseSummary,
   type ReleaseList,
+  type ReleaseManifestWithExports,
 } from './releases-schemas';
 import { createReleasesService, type ReleasesService } from './releases-service';
 
-export function releasesRouter(releases: ReleasesService): Router {
+export function releasesRouter(
+  releases: ReleasesService,
+  exportsService: ReleaseExportsService,
+): Router {
   const router = Router();
 
   router.get('/releases', async (_req, res) => {
@@ -23,14 +30,26 @@ export function releasesRouter(releases: ReleasesService): Router {
   router.get('/releases/:version', one, async (req, res) => {
     const { version } = one.input(res).params;
     const { release, counts } = await releases.manifest(version);
-    sendReleaseAnswer(req, res, toReleaseManifest(release, counts), version);
+    const digests = await exportsService.digests(release);
+    const body: ReleaseManifestWithExports = {
+      ...toReleaseManifest(release, counts),
+      exports: Object.fromEntries(
+        EXPORT_FORMATS.map((f) => [
+          f,
+          { ...digests[f], url: exportUrl(req.baseUrl, release.version, f) },
+        ]),
+      ) as ReleaseManifestWithExports['exports'],
+    };
+    sendReleaseAnswer(req, res, body, version);
   });
 
+  router.use(releaseExportsRouter(releases, exportsService));
   return router;
 }
 
-/** Published releases: list, manifests, and the snapshot every computation reads. */
+/** Published releases: list, manifests, exports, diffs, and the snapshot every computation reads. */
 export function createReleasesModule(deps: { db: Database }) {
   const service = createReleasesService(deps.db);
-  return { service, router: releasesRouter(service) };
+  const exportsService = createReleaseExportsService(deps.db, service);
+  return { service, exportsService, router: releasesRouter(service, exportsService) };
 }
