@@ -23,6 +23,12 @@ export const routes: Routes = [
       import('./features/calculate/calculate.routes').then((m) => m.CALCULATE_ROUTES),
   },
   {
+    path: 'curation',
+    canMatch: [roleGuard('curator', 'editor', 'admin')],
+    loadChildren: () =>
+      import('./features/curation/curation.routes').then((m) => m.CURATION_ROUTES),
+  },
+  {
     path: 'admin',
     canMatch: [roleGuard('admin')],
     loadChildren: () => import('./features/admin/admin.routes').then((m) => m.ADMIN_ROUTES),

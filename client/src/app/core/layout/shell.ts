@@ -42,6 +42,20 @@ export class Shell {
     { path: '/calculate/hess', label: 'Hess combination' },
   ] as const;
 
+  /** Curation links by role: proposing for curators and up, the review queue for editors. */
+  protected readonly curationItems = computed(() => {
+    const items: { path: string; label: string }[] = [];
+    if (!this.session.hasRole('curator', 'editor', 'admin')) return items;
+    items.push(
+      { path: '/curation/propose', label: 'Propose' },
+      { path: '/curation/proposals', label: 'My proposals' },
+    );
+    if (this.session.hasRole('editor', 'admin')) {
+      items.push({ path: '/curation/review', label: 'Review' });
+    }
+    return items;
+  });
+
   private readonly url = toSignal(
     this.router.events.pipe(
       filter((event) => event instanceof NavigationEnd),
@@ -54,6 +68,7 @@ export class Shell {
   protected readonly signInUrl = computed(() => signInHref(this.url()));
   /** The calculation screens get a second row of links, one per screen. */
   protected readonly inCalculate = computed(() => this.url().startsWith('/calculate'));
+  protected readonly inCuration = computed(() => this.url().startsWith('/curation'));
 
   protected async signOut(): Promise<void> {
     this.signingOut.set(true);

@@ -1,0 +1,94 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import { Observable } from 'rxjs';
+
+import type {
+  CheckAnswer,
+  CommentAnswer,
+  CreateAnswer,
+  CreateProposalBody,
+  Decision,
+  ProposalDetail,
+  ProposalItemInput,
+  ProposalList,
+  ProposalStatus,
+  TransitionAnswer,
+} from '@contracts/proposals/proposals-schemas';
+import type { DocumentList } from '@contracts/sources/sources-schemas';
+
+/** One page request of a proposal list (the review queue, or the caller's own). */
+export interface ProposalListRequest {
+  readonly status: readonly ProposalStatus[];
+  readonly author?: 'me';
+  readonly stale?: boolean;
+  readonly sort: 'updatedAt' | 'createdAt' | 'submittedAt' | 'id' | 'status';
+  readonly order: 'asc' | 'desc';
+  readonly offset: number;
+  readonly limit: number;
+}
+
+/** Proposals: build, check, submit, review, decide. */
+@Injectable({ providedIn: 'root' })
+export class CurationApi {
+  private readonly http = inject(HttpClient);
+  private readonly base = '/api/v1/proposals';
+
+  list(request: ProposalListRequest): Observable<ProposalList> {
+    let params = new HttpParams({
+      fromObject: {
+        sort: request.sort,
+        order: request.order,
+        offset: request.offset,
+        limit: request.limit,
+      },
+    });
+    if (request.status.length > 0) params = params.set('status', request.status.join(','));
+    if (request.author) params = params.set('author', request.author);
+    if (request.stale) params = params.set('stale', 'true');
+    return this.http.get<ProposalList>(this.base, { params });
+  }
+
+  proposal(id: number): Observable<ProposalDetail> {
+    return this.http.get<ProposalDetail>(`${this.base}/${id}`);
+  }
+
+  /** Live validation of items (engine formula checks, duplicates); nothing is saved. */
+  check(items: ProposalItemInput[]): Observable<CheckAnswer> {
+    return this.http.post<CheckAnswer>(`${this.base}/check`, { items });
+  }
+
+  create(body: CreateProposalBody): Observable<CreateAnswer> {
+    return this.http.post<CreateAnswer>(this.base, body);
+  }
+
+  /** Replaces rationale and items of a draft, or of a proposal sent back for changes. */
+  revise(id: number, body: CreateProposalBody): Observable<TransitionAnswer> {
+    return this.http.put<TransitionAnswer>(`${this.base}/${id}`, body);
+  }
+
+  submit(id: number): Observable<TransitionAnswer> {
+    return this.http.post<TransitionAnswer>(`${this.base}/${id}/submit`, null);
+  }
+
+  withdraw(id: number): Observable<TransitionAnswer> {
+    return this.http.post<TransitionAnswer>(`${this.base}/${id}/withdraw`, null);
+  }
+
+  comment(id: number, body: string): Observable<CommentAnswer> {
+    return this.http.post<CommentAnswer>(`${this.base}/${id}/comments`, { body });
+  }
+
+  /** Documents attached to a source (editors, admins and the proposer may read them). */
+  documents(sourceId: number | string): Observable<DocumentList> {
+    return this.http.get<DocumentList>(`/api/v1/sources/${sourceId}/documents`);
+  }
+
+  decide(id: number, decision: Decision, comment: string): Observable<TransitionAnswer> {
+    return this.http.post<TransitionAnswer>(`${this.base}/${id}/decision`, { decision, comment });
+  }
+}
+
+/** Where a document of a source is downloaded. */
+export function documentHref(sourceId: number | string, documentId: number | string): string {
+  return `/api/v1/sources/${sourceId}/documents/${documentId}`;
+}
