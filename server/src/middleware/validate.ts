@@ -39,11 +39,11 @@ export function validate<S extends RequestSchemas>(schemas: S): Validator<S> {
         ? schema.parse(part === 'body' ? (req.body ?? {}) : req[part])
         : undefined;
     }
-    res.locals.input = input;
+    res.locals['input'] = input;
     next();
   };
   return Object.assign(handler, {
-    input: (res: Response) => res.locals.input as ValidInput<S>,
+    input: (res: Response) => res.locals['input'] as ValidInput<S>,
   });
 }
 
