@@ -21,6 +21,7 @@ import { createHealthModule } from './modules/health/health-router';
 import { createSearchModule } from './modules/search/search-router';
 import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
+import { createReleaseDraftsModule } from './modules/releases/release-drafts-router';
 import { createReleasesModule } from './modules/releases/releases-router';
 import { createTokensModule } from './modules/tokens/tokens-router';
 import { createUsersModule } from './modules/users/users-router';
@@ -76,6 +77,7 @@ export function createApp(deps: AppDeps): Express {
   const audit = createAuditModule({ db: database.db });
   const calculate = createCalculateModule();
   const releases = createReleasesModule({ db: database.db });
+  const releaseDrafts = createReleaseDraftsModule({ db: database.db, releases: releases.service });
   const species = createSpeciesModule({ db: database.db, releases: releases.service });
   const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
@@ -99,6 +101,7 @@ export function createApp(deps: AppDeps): Express {
     users.router,
     audit.router,
     calculate.router,
+    releaseDrafts.router,
     releases.router,
     reactions.router,
     species.router,
