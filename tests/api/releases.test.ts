@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { IMMUTABLE_CACHE } from '../../server/src/modules/releases/release-http-cache';
 import { ReleaseList, ReleaseManifest } from '../../server/src/modules/releases/releases-schemas';
+import { acceptFormationValueIn } from '../../server/src/db/accepted-revisions';
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -78,14 +79,27 @@ describe('releases', () => {
     it('keeps a draft hidden, then publishes it in one transaction with its audit row', async () => {
       const releases = createReleasesService(t.db.db);
       const actor = { id: await editorId() };
-      await releases.createDraft(actor, '2026.2', 'Second pass');
-      await request(t.app).get('/api/v1/releases/2026.2').expect(404);
+      await releases.createDraft(actor, '2029.2', 'Second pass');
+      await request(t.app).get('/api/v1/releases/2029.2').expect(404);
+      // A release must change something: one value accepted since the newest release.
+      await t.db.db.transaction(async (tx) =>
+        acceptFormationValueIn(tx, {
+          speciesPhaseId: (
+            await one(`select sp.id from species_phases sp join species s on s.id = sp.species_id
+              where s.key = 'methane' and sp.phase = 'g'`)
+          ).id,
+          value: '-74870',
+          method: 'evaluated',
+          sourceId: (await one(`select min(id) as id from sources`)).id,
+          createdBy: actor.id,
+        }),
+      );
 
-      const published = await releases.publish(actor, '2026.2');
+      const published = await releases.publish(actor, '2029.2');
       expect(published.status).toBe('published');
       const pins = await one(`
         select count(*)::int as n from release_entries e join releases r on r.id = e.release_id
-        where r.version = '2026.2'`);
+        where r.version = '2029.2'`);
       const accepted = await one(
         `select count(*)::int as n from revisions where status = 'accepted'`,
       );
@@ -94,17 +108,17 @@ describe('releases', () => {
         `select actor_id, after from audit_log where action = 'release.published' and entity_id = $1`,
         [String(published.id)],
       );
-      expect(audit).toMatchObject({ actor_id: actor.id, after: { version: '2026.2' } });
+      expect(audit).toMatchObject({ actor_id: actor.id, after: { version: '2029.2' } });
 
-      const res = await request(t.app).get('/api/v1/releases/2026.2').expect(200);
+      const res = await request(t.app).get('/api/v1/releases/2029.2').expect(200);
       expect(res.body.publishedBy.login).toBe('demo-editor');
-      expect((await createReleasesService(t.db.db).resolve('latest')).version).toBe('2026.2');
+      expect((await createReleasesService(t.db.db).resolve('latest')).version).toBe('2029.2');
     });
 
     it('refuses publishing twice, a reused label, and an actor without the editor role', async () => {
       const releases = createReleasesService(t.db.db);
       const actor = { id: await editorId() };
-      await expect(releases.publish(actor, '2026.2')).rejects.toMatchObject({
+      await expect(releases.publish(actor, '2029.2')).rejects.toMatchObject({
         status: 409,
         code: 'already_published',
       });
@@ -112,12 +126,12 @@ describe('releases', () => {
         code: 'version_taken',
       });
       const reader = (await one(`select id from users where login = 'demo-reader'`)).id;
-      await releases.createDraft(actor, '2026.3');
-      await expect(releases.publish({ id: reader }, '2026.3')).rejects.toMatchObject({
+      await releases.createDraft(actor, '2029.3');
+      await expect(releases.publish({ id: reader }, '2029.3')).rejects.toMatchObject({
         status: 403,
         code: 'role_revoked',
       });
-      const still = await one(`select status from releases where version = '2026.3'`);
+      const still = await one(`select status from releases where version = '2029.3'`);
       expect(still.status).toBe('draft');
     });
   });

@@ -43,6 +43,7 @@ const listColumns = {
   createdAt: releases.createdAt,
   publishedBy: releases.publishedBy,
   publishedAt: releases.publishedAt,
+  baseReleaseId: releases.baseReleaseId,
   publishedByLogin: publisher.login,
   publishedByName: publisher.name,
 };
@@ -122,7 +123,7 @@ export const releasesRepository = {
 
   async insertDraft(
     tx: Tx,
-    draft: { version: string; notes: string; createdBy: number },
+    draft: { version: string; notes: string; createdBy: number; baseReleaseId: number | null },
   ): Promise<ReleaseRow> {
     const [row] = await tx.insert(releases).values(draft).returning();
     return row!;
@@ -135,16 +136,6 @@ export const releasesRepository = {
       .where(eq(releases.version, version))
       .for('update');
     return row;
-  },
-
-  /** Pins the one accepted revision of every species-phase and quantity; returns how many. */
-  async pinAccepted(tx: Tx, releaseId: number): Promise<number> {
-    const result = await tx.execute(sql`
-      insert into ${releaseEntries} (release_id, species_phase_id, quantity, revision_id)
-      select ${releaseId}, ${revisions.speciesPhaseId}, ${revisions.quantity}, ${revisions.id}
-      from ${revisions} where ${revisions.status} = 'accepted'
-      on conflict do nothing`);
-    return result.rowCount ?? 0;
   },
 
   async markPublished(tx: Tx, releaseId: number, userId: number): Promise<ReleaseRow> {

@@ -1,8 +1,9 @@
-import { RELEASE_VERSION_PATTERN, type UserRow } from '../../../../schema';
+import { RELEASE_VERSION_PATTERN, type ReleaseRow, type UserRow } from '../../../../schema';
 import { pgErrorCode, type Database, type Tx } from '../../db/client';
 import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit-repository';
 import { usersRepository } from '../users/users-repository';
+import { draftRepository } from './draft-repository';
 import { buildSnapshot, type ReleaseSnapshot } from './release-snapshot';
 import { releasesRepository, type ReleaseCounts, type ReleaseListRow } from './releases-repository';
 import { loadSnapshotInput } from './snapshot-input';
@@ -10,6 +11,20 @@ import { loadSnapshotInput } from './snapshot-input';
 export const LATEST = 'latest';
 /** How long "latest" may point at the previous release after another process publishes. */
 const LATEST_TTL_MS = 5_000;
+
+export const unknownDraft = (version: string) =>
+  new AppError(404, 'unknown_draft', `There is no release or draft ${JSON.stringify(version)}`, {
+    release: version,
+  });
+
+export const alreadyPublished = (version: string) =>
+  new AppError(409, 'already_published', `Release ${version} is already published`, { version });
+
+/** Steps of a publish, in order, as the progress of the publish job reports them. */
+export type PublishStep = 'waiting' | 'checking' | 'pinning' | 'freezing' | 'notifying';
+
+/** Runs in the publish transaction once the release is frozen (e.g. the watchers' e-mails). */
+export type OnPublished = (tx: Tx, release: ReleaseRow) => Promise<void>;
 
 export const unknownRelease = (version: string) =>
   new AppError(404, 'unknown_release', `There is no published release ${JSON.stringify(version)}`, {
@@ -23,7 +38,11 @@ export interface ReleaseManifest {
 
 type Actor = Pick<UserRow, 'id'>;
 
-export function createReleasesService(db: Database, now: () => number = Date.now) {
+export function createReleasesService(
+  db: Database,
+  now: () => number = Date.now,
+  onPublished: OnPublished = async () => {},
+) {
   // Published releases never change, so what is read about them is kept for the process's life.
   const published = new Map<string, ReleaseListRow>();
   const snapshots = new Map<number, Promise<ReleaseSnapshot>>();
@@ -64,22 +83,33 @@ export function createReleasesService(db: Database, now: () => number = Date.now
     return p;
   }
 
+  /**
+   * A draft based on the newest published release; the actor's role is re-read under lock.
+   * Inside the caller's transaction, with its audit row.
+   */
   async function createDraftIn(tx: Tx, actor: Actor, version: string, notes: string) {
     if (!RELEASE_VERSION_PATTERN.test(version)) {
       throw new AppError(400, 'invalid_version', 'A release version looks like 2026.1', {
         version,
       });
     }
+    const user = await usersRepository.assertActorRoleLocked(tx, actor.id, 'editor');
+    const base = await releasesRepository.findLatestPublished(tx);
     try {
       const row = await tx.transaction((sp) =>
-        releasesRepository.insertDraft(sp, { version, notes, createdBy: actor.id }),
+        releasesRepository.insertDraft(sp, {
+          version,
+          notes,
+          createdBy: user.id,
+          baseReleaseId: base?.id ?? null,
+        }),
       );
       await recordAudit(tx, {
-        actorId: actor.id,
+        actorId: user.id,
         action: 'release.draft_created',
         entityType: 'release',
         entityId: row.id,
-        after: { version, notes },
+        after: { version, notes, base: base?.version ?? null },
       });
       return row;
     } catch (err) {
@@ -91,25 +121,58 @@ export function createReleasesService(db: Database, now: () => number = Date.now
   }
 
   /**
-   * Pins every accepted revision into the draft and freezes it, with its audit row, inside the
-   * caller's transaction. The actor's role is re-read under a row lock: a role revoked a moment
-   * ago cannot publish.
+   * Publishes a draft inside the caller's transaction: the base release's entries carried over,
+   * the included changes applied (retirements removed), exactly one revision per species-phase
+   * and quantity; then the release is frozen by the database's triggers. Publishes serialise on
+   * one advisory lock, so of two drafts on the same base only the first can publish, and of two
+   * publishes of one draft only the first finds it still a draft. The actor's role is re-read
+   * under a row lock: a role revoked a moment ago cannot publish.
    */
-  async function publishIn(tx: Tx, actor: Actor, version: string) {
+  async function publishIn(
+    tx: Tx,
+    actor: Actor,
+    version: string,
+    report: (phase: PublishStep) => void = () => {},
+  ) {
+    report('waiting');
     const user = await usersRepository.assertActorRoleLocked(tx, actor.id, 'editor');
+    await draftRepository.lockPublishing(tx);
     const release = await releasesRepository.lockByVersion(tx, version);
-    if (!release) throw unknownRelease(version);
-    if (release.status === 'published') {
-      throw new AppError(409, 'already_published', `Release ${version} is already published`, {
+    if (!release) throw unknownDraft(version);
+    if (release.status === 'published') throw alreadyPublished(version);
+    report('checking');
+    const newest = await releasesRepository.findLatestPublished(tx);
+    if ((newest?.id ?? null) !== release.baseReleaseId) {
+      const base = release.baseReleaseId
+        ? (await draftRepository.findById(tx, release.baseReleaseId))?.version
+        : null;
+      throw new AppError(
+        409,
+        'stale_draft',
+        `Release ${newest?.version} was published after draft ${version} was started from ${base ?? 'nothing'}: re-base the draft and check its changes again`,
+        { version, base: base ?? null, latest: newest?.version ?? null },
+      );
+    }
+    const stale = await draftRepository.staleInputs(tx, release);
+    const unacknowledged = [
+      ...new Set(stale.filter((s) => !s.acknowledged).map((s) => s.derivedId)),
+    ];
+    if (unacknowledged.length > 0) {
+      throw new AppError(
+        409,
+        'stale_derived',
+        `${unacknowledged.length} derived value(s) would be published stale: include their re-derivation or acknowledge them`,
+        { version, revisionIds: unacknowledged },
+      );
+    }
+    report('pinning');
+    const pinned = await draftRepository.pinDraft(tx, release);
+    if (pinned.changes === 0) {
+      throw new AppError(409, 'empty_release', `Release ${version} would change nothing`, {
         version,
       });
     }
-    const pinned = await releasesRepository.pinAccepted(tx, release.id);
-    if (pinned === 0) {
-      throw new AppError(409, 'empty_release', `Release ${version} would pin no values`, {
-        version,
-      });
-    }
+    report('freezing');
     const row = await releasesRepository.markPublished(tx, release.id, user.id);
     await recordAudit(tx, {
       actorId: user.id,
@@ -117,8 +180,17 @@ export function createReleasesService(db: Database, now: () => number = Date.now
       entityType: 'release',
       entityId: release.id,
       before: { status: release.status },
-      after: { status: row.status, version, entries: pinned },
+      after: {
+        status: row.status,
+        version,
+        base: newest?.version ?? null,
+        entries: pinned.entries,
+        changes: pinned.changes,
+        acknowledgedStale: [...new Set(stale.map((s) => s.derivedId))],
+      },
     });
+    report('notifying');
+    await onPublished(tx, row);
     latest = null;
     return row;
   }
@@ -152,8 +224,8 @@ export function createReleasesService(db: Database, now: () => number = Date.now
     createDraft: (actor: Actor, version: string, notes = '') =>
       db.transaction((tx) => createDraftIn(tx, actor, version, notes)),
 
-    publish: (actor: Actor, version: string) =>
-      db.transaction((tx) => publishIn(tx, actor, version)),
+    publish: (actor: Actor, version: string, report?: (phase: PublishStep) => void) =>
+      db.transaction((tx) => publishIn(tx, actor, version, report)),
   };
 }
 
