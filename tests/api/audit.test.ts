@@ -92,6 +92,7 @@ describe('audit log API', () => {
   it('shows an admin every entry, newest first, with who acted and before and after', async () => {
     const body = await get(await as('demo-admin'), ours);
     expect(body.scope).toBe('all');
+    expect(body.entityTypes).toEqual(expect.arrayContaining(['proposal', 'session', 'user']));
     expect(body.total).toBe(5);
     expect(body.entries.map((e: { action: string }) => e.action)).toEqual([
       'test.session',
@@ -145,6 +146,15 @@ describe('audit log API', () => {
     const editor = await as('demo-editor');
     const body = await get(editor, ours);
     expect(body.scope).toBe('curated');
+    expect(body.entityTypes).toEqual([
+      'species',
+      'phase',
+      'source',
+      'revision',
+      'proposal',
+      'release',
+      'dataset',
+    ]);
     expect(body.entries.map((e: { entityType: string }) => e.entityType).sort()).toEqual([
       'proposal',
       'proposal',

@@ -96,4 +96,13 @@ export const auditRepository = {
       .where(where);
     return { rows, total };
   },
+
+  /** Every entity type the log holds (a handful; read from the entity-type index). */
+  async entityTypes(db: Tx | Database): Promise<string[]> {
+    const rows = await db
+      .selectDistinct({ entityType: auditLog.entityType })
+      .from(auditLog)
+      .orderBy(auditLog.entityType);
+    return rows.map((r) => r.entityType);
+  },
 };

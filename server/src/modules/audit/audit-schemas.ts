@@ -66,5 +66,7 @@ export const AuditPage = z.object({
   pageSize: z.number().int(),
   total: z.number().int(),
   scope: z.enum(['all', 'curated']),
+  /** The entity types this caller may filter by, for the screen's picker. */
+  entityTypes: z.array(z.string()),
 });
 export type AuditPage = z.infer<typeof AuditPage>;

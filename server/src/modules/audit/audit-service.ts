@@ -50,6 +50,10 @@ export function createAuditService(db: Database) {
         pageSize: q.pageSize,
         total,
         scope,
+        entityTypes:
+          scope === 'all'
+            ? [...new Set([...curated, ...(await auditRepository.entityTypes(db))])].sort()
+            : [...curated],
       };
     },
   };
