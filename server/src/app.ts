@@ -76,7 +76,7 @@ export function createApp(deps: AppDeps): Express {
   });
   const audit = createAuditModule({ db: database.db });
   const calculate = createCalculateModule();
-  const releases = createReleasesModule({ db: database.db });
+  const releases = createReleasesModule({ db: database.db, publicUrl: config.publicUrl });
   const releaseDrafts = createReleaseDraftsModule({ db: database.db, releases: releases.service });
   const species = createSpeciesModule({ db: database.db, releases: releases.service });
   const search = createSearchModule({ db: database.db, releases: releases.service });

@@ -480,4 +480,37 @@ describe('release composer', () => {
       await publish('2032.3').expect(200);
     });
   });
+
+  describe('watchers', () => {
+    it('queues each watcher’s impact e-mail in the publish transaction', async () => {
+      const reader = request.agent(t.app);
+      const xsrf = await signIn(reader, 'demo-reader');
+      await reader
+        .post('/api/v1/me/watchlists')
+        .set('X-XSRF-TOKEN', xsrf)
+        .send({ name: 'Boiler feed', reactions: [{ equation: 'H2(g) + 1/2 O2(g) -> H2O(l)' }] })
+        .expect(201);
+      await create('2033.1').expect(201);
+      await accept('water', 'l', '-285000', { uncertainty: '40' });
+      const stale = StaleAnswer.parse((await editor.get('/api/v1/releases/2033.1/stale')).body);
+      if (stale.stale.length > 0) {
+        await editor
+          .post('/api/v1/releases/2033.1/acknowledgements')
+          .set('X-XSRF-TOKEN', editorXsrf)
+          .send({ revisionIds: stale.stale.map((x) => x.revisionId) })
+          .expect(200);
+      }
+      await publish('2033.1').expect(200);
+      const mail = await rows(
+        `select to_address, subject, text from outbox_messages
+         where event_kind = 'release.published' and recipient_id = $1`,
+        [await userId('demo-reader')],
+      );
+      expect(mail).toHaveLength(1);
+      expect(mail[0].to_address).toBe('tomas.reyes@kestrel.example');
+      expect(mail[0].subject).toContain('2033.1');
+      expect(mail[0].subject).toContain('Boiler feed');
+      expect(mail[0].text).toContain('H2(g) + 1/2 O2(g) -> H2O(l)');
+    });
+  });
 });

@@ -12,6 +12,7 @@ import {
   type ReleaseList,
   type ReleaseManifestWithExports,
 } from './releases-schemas';
+import { watcherMailsOnPublish } from './release-mail';
 import { createReleasesService, type ReleasesService } from './releases-service';
 
 export function releasesRouter(
@@ -48,8 +49,10 @@ export function releasesRouter(
 }
 
 /** Published releases: list, manifests, exports, diffs, and the snapshot every computation reads. */
-export function createReleasesModule(deps: { db: Database }) {
-  const service = createReleasesService(deps.db);
+export function createReleasesModule(deps: { db: Database; publicUrl?: string }) {
+  // Watchers' impact e-mails go out (through the outbox) with every publish of this app.
+  const onPublished = deps.publicUrl ? watcherMailsOnPublish(deps.publicUrl) : undefined;
+  const service = createReleasesService(deps.db, Date.now, onPublished);
   const exportsService = createReleaseExportsService(deps.db, service);
   return { service, exportsService, router: releasesRouter(service, exportsService) };
 }
