@@ -2,6 +2,8 @@
 const serverTransform = {
   '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.server.json', diagnostics: { warnOnly: false } }],
 };
+// ESM-only packages that server code reaches through CommonJS dependencies (see the shim).
+const serverModules = { '^node-fetch$': '<rootDir>/tests/support/node-fetch-cjs.js' };
 
 /** @type {import('jest').Config} */
 module.exports = {
@@ -12,6 +14,7 @@ module.exports = {
       roots: ['<rootDir>/server/src'],
       testMatch: ['**/*.spec.ts'],
       transform: serverTransform,
+      moduleNameMapper: serverModules,
     },
     {
       displayName: 'reference',
@@ -19,6 +22,7 @@ module.exports = {
       roots: ['<rootDir>/tests/reference'],
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
+      moduleNameMapper: serverModules,
     },
     {
       displayName: 'api',
@@ -26,6 +30,7 @@ module.exports = {
       roots: ['<rootDir>/tests/api'],
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
+      moduleNameMapper: serverModules,
     },
     {
       displayName: 'e2e',
@@ -33,6 +38,7 @@ module.exports = {
       roots: ['<rootDir>/tests/e2e'],
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
+      moduleNameMapper: serverModules,
       // A project-level `testTimeout` is ignored by Jest; the setup file sets it.
       setupFilesAfterEnv: ['<rootDir>/tests/support/e2e-timeout.ts'],
     },

@@ -18,7 +18,7 @@ const common = {
 const fakeApart = {
   name: 'fakes-apart',
   setup(b) {
-    b.onResolve({ filter: /\/fakes\/(github|smtp)-fake$/ }, (args) => ({
+    b.onResolve({ filter: /\/fakes\/(github|smtp|doi|s3)-fake$/ }, (args) => ({
       path: `./${args.path.split('/').pop()}.js`,
       external: true,
     }));
@@ -40,4 +40,14 @@ await build({
   ...common,
   entryPoints: ['server/src/fakes/smtp-fake.ts'],
   outfile: `${outdir}/smtp-fake.js`,
+});
+await build({
+  ...common,
+  entryPoints: ['server/src/fakes/doi-fake.ts'],
+  outfile: `${outdir}/doi-fake.js`,
+});
+await build({
+  ...common,
+  entryPoints: ['server/src/fakes/s3-fake.ts'],
+  outfile: `${outdir}/s3-fake.js`,
 });

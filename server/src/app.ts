@@ -4,6 +4,7 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import { defaultAdapters, type Adapters } from './adapters';
+import { fileStoreFor } from './adapters/file-store';
 import type { AppConfig } from './config/env';
 import type { DbHandle } from './db/client';
 import type { Logger } from './lib/logger';
@@ -19,6 +20,7 @@ import { REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy'
 import { createCalculateModule } from './modules/calculate/calculate-router';
 import { createHealthModule } from './modules/health/health-router';
 import { createSearchModule } from './modules/search/search-router';
+import { createSourcesModule } from './modules/sources/sources-router';
 import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
 import { createReleaseDraftsModule } from './modules/releases/release-drafts-router';
@@ -79,6 +81,11 @@ export function createApp(deps: AppDeps): Express {
   const releases = createReleasesModule({ db: database.db, publicUrl: config.publicUrl });
   const releaseDrafts = createReleaseDraftsModule({ db: database.db, releases: releases.service });
   const species = createSpeciesModule({ db: database.db, releases: releases.service });
+  const sources = createSourcesModule({
+    db: database.db,
+    doiBaseUrl: config.doiBaseUrl,
+    files: adapters.fileStore ?? fileStoreFor(config.fileStore),
+  });
   const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
   const watchlists = createWatchlistsModule({ db: database.db, reactions: reactions.service });
@@ -101,6 +108,7 @@ export function createApp(deps: AppDeps): Express {
     users.router,
     audit.router,
     calculate.router,
+    sources.router,
     releaseDrafts.router,
     releases.router,
     reactions.router,

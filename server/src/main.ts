@@ -6,10 +6,12 @@ import { loadConfig, type AppConfig } from './config/env';
 import { connectDatabase } from './db/client';
 import { ensureStarterRelease } from './db/load-starter';
 import { runMigrations } from './db/migrate';
+import { ensureDemoRelease } from './db/demo-release';
 import { seedDemoData } from './db/seed-demo';
 import type { FakeGithub } from './fakes/github-fake';
 import { createLogger } from './lib/logger';
 import { startMail } from './modules/mail/mail-startup';
+import { startLocalSourceServices } from './modules/sources/sources-startup';
 
 async function main(): Promise<void> {
   const config = loadConfig();
@@ -25,7 +27,12 @@ async function main(): Promise<void> {
   const database = connectDatabase(config.databaseUrl, logger);
   const starter = await ensureStarterRelease(database.db);
   if (starter.loaded) logger.info(starter, 'starter dataset loaded and published');
-  if (config.demoData) await seedDemoData(database.db);
+  if (config.demoData) {
+    await seedDemoData(database.db);
+    // Not in the test template, where 2026.1 stays the newest release and tests publish their own.
+    const demo = await ensureDemoRelease(database.db);
+    if (demo.published) logger.info(demo, 'demo release published');
+  }
 
   let fake: FakeGithub | null = null;
   if (!config.github && !config.fakeGithubUrl) {
@@ -40,7 +47,9 @@ async function main(): Promise<void> {
 
   const mail = await startMail({ config, db: database.db, logger });
 
-  const app = createApp({ config, database, logger, fakeGithubUrl: fake?.url });
+  const local = await startLocalSourceServices(config, logger);
+
+  const app = createApp({ config: local.config, database, logger, fakeGithubUrl: fake?.url });
   const server = app.listen(config.port, config.host, () => {
     const { port } = server.address() as AddressInfo;
     process.stdout.write(`\nThalpos is running at http://${config.host}:${port}\n\n`);
@@ -56,6 +65,7 @@ async function main(): Promise<void> {
     server.close(async () => {
       await mail.stop();
       await fake?.stop();
+      await local.stop();
       await database.pool.end();
       process.exit(0);
     });

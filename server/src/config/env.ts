@@ -19,6 +19,22 @@ const EnvSchema = z
     FAKE_GITHUB_URL: z.string().url().optional(),
     /** Port of the fake GitHub that the server starts in-process when no real one is configured. */
     FAKE_GITHUB_PORT: z.coerce.number().int().min(0).max(65535).default(3001),
+    /** DOI metadata service (CSL-JSON by content negotiation); https://doi.org in production. */
+    DOI_BASE_URL: z.string().url().optional(),
+    /** Base URL of an already running fake DOI service (tests start one of their own). */
+    FAKE_DOI_URL: z.string().url().optional(),
+    /** Port of the fake DOI service that the server starts in-process when none is configured. */
+    FAKE_DOI_PORT: z.coerce.number().int().min(0).max(65535).default(3004),
+    /** S3 API endpoint for attached documents (path-style; any S3-compatible store). */
+    S3_URL: z.string().url().optional(),
+    /** Base URL of an already running local S3 stand-in (tests start one of their own). */
+    FAKE_S3_URL: z.string().url().optional(),
+    /** Port of the local S3 stand-in that the server starts in-process when none is configured. */
+    FAKE_S3_PORT: z.coerce.number().int().min(0).max(65535).default(3005),
+    S3_BUCKET: z.string().min(3).default('thalpos-documents'),
+    S3_REGION: z.string().min(1).default('us-east-1'),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
     /** GitHub logins that become admin at their first sign-in (bootstraps a real deployment). */
     ADMIN_LOGINS: z.string().default(''),
     /** The site's address as users reach it; links in e-mail point here. Default: HOST and PORT. */
@@ -71,6 +87,13 @@ const EnvSchema = z
         message: 'required in production (or set FAKE_SIGN_IN=1 for a demo server)',
       });
     }
+    if (env.S3_URL && !(env.S3_ACCESS_KEY_ID && env.S3_SECRET_ACCESS_KEY)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['S3_ACCESS_KEY_ID'],
+        message: 'S3_URL needs S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY',
+      });
+    }
     if (Boolean(env.GITHUB_CLIENT_ID) !== Boolean(env.GITHUB_CLIENT_SECRET)) {
       ctx.addIssue({
         code: 'custom',
@@ -81,6 +104,31 @@ const EnvSchema = z
   });
 
 export type Env = z.infer<typeof EnvSchema>;
+
+export interface FileStoreConfig {
+  endpoint: string;
+  bucket: string;
+  region: string;
+  accessKeyId: string;
+  secretAccessKey: string;
+}
+
+/** S3_URL, else the local stand-in (whose fixed credentials are its own, not secrets). */
+function fileStoreConfig(e: Env): FileStoreConfig | null {
+  const endpoint = e.S3_URL ?? e.FAKE_S3_URL;
+  if (!endpoint) return null;
+  const local = !e.S3_URL;
+  return {
+    endpoint,
+    bucket: e.S3_BUCKET,
+    region: e.S3_REGION,
+    accessKeyId: e.S3_ACCESS_KEY_ID ?? (local ? LOCAL_S3_KEY : ''),
+    secretAccessKey: e.S3_SECRET_ACCESS_KEY ?? (local ? LOCAL_S3_KEY : ''),
+  };
+}
+
+/** The access key and secret the local S3 stand-in (s3rver) accepts. */
+export const LOCAL_S3_KEY = 'S3RVER';
 
 export interface AppConfig {
   env: Env['NODE_ENV'];
@@ -103,6 +151,12 @@ export interface AppConfig {
     from: string;
   };
   adminLogins: string[];
+  /** Where DOIs are resolved; null outside production until the local fake is started. */
+  doiBaseUrl: string | null;
+  fakeDoiPort: number;
+  /** The S3 store for documents; null outside production until the local stand-in is started. */
+  fileStore: FileStoreConfig | null;
+  fakeS3Port: number;
   clientDist: string;
   logLevel: Env['LOG_LEVEL'];
   trustProxy: boolean;
@@ -143,6 +197,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): AppConfig {
       fakeSmtpApiPort: e.FAKE_SMTP_API_PORT,
       from: e.MAIL_FROM,
     },
+    doiBaseUrl:
+      e.DOI_BASE_URL ?? e.FAKE_DOI_URL ?? (e.NODE_ENV === 'production' ? 'https://doi.org' : null),
+    fakeDoiPort: e.FAKE_DOI_PORT,
+    fileStore: fileStoreConfig(e),
+    fakeS3Port: e.FAKE_S3_PORT,
     adminLogins: e.ADMIN_LOGINS.split(',')
       .map((s) => s.trim())
       .filter(Boolean),

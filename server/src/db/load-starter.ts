@@ -17,7 +17,7 @@ import {
 } from '../../../imports/registry-csv';
 import { PROJECT_ROOT } from '../config/paths';
 import { recordAudit } from '../modules/audit/audit-repository';
-import { formatCitation } from '../modules/releases/citation-format';
+import { formatCitation } from '../modules/sources/citation';
 import { createReleasesService, type ReleasesService } from '../modules/releases/releases-service';
 import type { Database, Tx } from './client';
 

@@ -1,7 +1,9 @@
 // Runs the local fakes of hosted services for the test runner: prints one `NAME=url` line per
 // fake (the environment variable the app reads), then `ready`; stops on SIGINT/SIGTERM.
 // FAKE_GITHUB_CALLBACK_URLS (comma-separated) pins the callback URLs the fake GitHub sends codes to.
+import { startFakeDoi } from './doi-fake';
 import { startFakeGithub } from './github-fake';
+import { startFakeS3 } from './s3-fake';
 import { startFakeSmtp } from './smtp-fake';
 
 interface RunningFake {
@@ -18,11 +20,16 @@ async function startAll(): Promise<RunningFake[]> {
     callbackUrls: callbackUrls.length ? callbackUrls : undefined,
   });
   const smtp = await startFakeSmtp();
+  const doi = await startFakeDoi();
+  // The bucket the app's configuration names by default (S3_BUCKET).
+  const s3 = await startFakeS3({ bucket: 'thalpos-documents' });
   return [
     { env: 'FAKE_GITHUB_URL', url: github.url, stop: () => github.stop() },
     { env: 'FAKE_SMTP_URL', url: smtp.url, stop: () => smtp.stop() },
     // The fake SMTP server's message listing (GET /messages), for tests that read what arrived.
     { env: 'FAKE_SMTP_API_URL', url: smtp.apiUrl, stop: async () => undefined },
+    { env: 'FAKE_DOI_URL', url: doi.url, stop: () => doi.stop() },
+    { env: 'FAKE_S3_URL', url: s3.url, stop: () => s3.stop() },
   ];
 }
 

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { readDataset, type Dataset } from '../../../../../imports/registry-csv';
-import { formatCitation } from '../../releases/citation-format';
+import { formatCitation } from '../../sources/citation';
 import {
   buildSnapshot,
   type ReleaseSnapshot,
