@@ -76,6 +76,8 @@ export interface ItemDerivation extends DerivationRecord {
   /** ΔfH° in J/mol, exact decimal text, and its propagated uncertainty. */
   value: string;
   valueUncertainty: string | null;
+  /** Basis of the propagated uncertainty (`as_stated` when the inputs' bases differ). */
+  valueUncertaintyBasis: 'standard' | 'expanded_k2' | 'as_stated' | null;
   inputs: {
     species: string;
     phase: string;

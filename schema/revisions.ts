@@ -57,8 +57,10 @@ export interface DerivationRecord {
   /** Measured ΔrH° in J/mol, exact decimal text. */
   deltaH: string;
   uncertainty: string | null;
-  /** Release whose values the other terms came from. */
+  /** Release whose values the other terms came from (`accepted`: the accepted values then). */
   releaseVersion: string;
+  /** Basis of the measured uncertainty (derivations recorded by proposals). */
+  uncertaintyBasis?: 'standard' | 'expanded_k2' | 'as_stated' | null;
 }
 
 /**

@@ -187,3 +187,17 @@ function serveClient(app: Express, dist: string): void {
     res.sendFile(index);
   });
 }
+import { fileStoreFor } from './adapters/file-store';
+import { createSourcesModule } from './modules/sources/sources-router';
+import { createProposalsModule } from './modules/proposals/proposals-router';
+import { createUploadsModule } from './modules/uploads/uploads-router';
+  const proposals = createProposalsModule({ db: database.db, releases: releases.service });
+  const sources = createSourcesModule({
+    db: database.db,
+    doiBaseUrl: config.doiBaseUrl,
+    files: adapters.fileStore ?? fileStoreFor(config.fileStore),
+  });
+  const uploads = createUploadsModule({ db: database.db, releases: releases.service });
+    proposals.router,
+    uploads.router,
+    sources.router,

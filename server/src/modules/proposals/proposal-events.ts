@@ -17,7 +17,7 @@ interface EventBase {
   author: EventUser;
   /** First line of the rationale, for a subject line. */
   title: string;
-  /** Everyone who has commented on or decided the proposal so far, author excluded. */
+  /** Everyone who has commented on or decided the proposal so far, author and actor excluded. */
   participants: EventUser[];
   /** When it happened (the transaction's clock). */
   at: Date;

@@ -111,20 +111,23 @@ const TransitionValue = z.object({
   ...Measured,
 });
 
-const valueShapes = (kind: 'add_value' | 'supersede_value') => {
-  const extra =
-    kind === 'supersede_value'
-      ? { kind: z.literal(kind), supersedes: RevisionId.optional() }
-      : { kind: z.literal(kind) };
-  return [
-    FormationValue.extend(extra).strict(),
-    HeatCapacityValue.extend(extra).strict(),
-    TransitionValue.extend(extra).strict(),
-  ] as const;
+const AddKind = { kind: z.literal('add_value') };
+const SupersedeKind = {
+  kind: z.literal('supersede_value'),
+  /** The accepted revision meant; without it, the one accepted at submission. */
+  supersedes: RevisionId.optional(),
 };
 
-export const AddValueItem = z.discriminatedUnion('quantity', valueShapes('add_value'));
-export const SupersedeValueItem = z.discriminatedUnion('quantity', valueShapes('supersede_value'));
+export const AddValueItem = z.discriminatedUnion('quantity', [
+  FormationValue.extend(AddKind).strict(),
+  HeatCapacityValue.extend(AddKind).strict(),
+  TransitionValue.extend(AddKind).strict(),
+]);
+export const SupersedeValueItem = z.discriminatedUnion('quantity', [
+  FormationValue.extend(SupersedeKind).strict(),
+  HeatCapacityValue.extend(SupersedeKind).strict(),
+  TransitionValue.extend(SupersedeKind).strict(),
+]);
 
 export const RetireValueItem = z
   .object({
@@ -499,3 +502,4 @@ export const RederiveBody = z
   })
   .strict();
 export const RederiveAnswer = CreateAnswer;
+export type RederiveAnswer = CreateAnswer;

@@ -1,0 +1,452 @@
+import { and, asc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
+import {
+  proposalComments,
+  proposalItems,
+  proposals,
+  revisions,
+  sources,
+  species,
+  speciesPhases,
+  users,
+  type ProposalCommentRow,
+  type ProposalItemRow,
+  type ProposalRow,
+  type StoredPhase,
+} from '../../../../schema';
+import type { Database, Tx } from '../../db/client';
+import type { ResolvedItem } from './item-check';
+import type { ProposalItemInput, ProposalListQuery, ProposalStatus } from './proposals-schemas';
+
+type Queryable = Database | Tx;
+
+interface SpeciesData {
+  id: number;
+  key: string;
+  name: string;
+  formula: string;
+  charge: number;
+  casRn: string | null;
+  inchiKey: string | null;
+}
+
+/** What checking a set of items needs from the registry, loaded in a few queries. */
+export interface CheckData {
+  species: Map<string, SpeciesData>;
+  phases: Map<string, { id: number; phase: StoredPhase; modification: string | null }[]>;
+  /** Accepted revision by `speciesPhaseId|quantity`. */
+  accepted: Map<string, { id: number }>;
+  revisionsById: Map<
+    number,
+    {
+      id: number;
+      status: string;
+      speciesKey: string;
+      phase: StoredPhase;
+      modification: string | null;
+      quantity: string;
+    }
+  >;
+  sources: Set<number>;
+  duplicates(
+    item: Extract<ProposalItemInput, { kind: 'add_species' }>,
+    hill: string | null,
+  ): { field: string; key: string; message: string }[];
+}
+
+const CHUNK = 1000;
+const chunks = <T>(list: readonly T[]) =>
+  Array.from({ length: Math.ceil(list.length / CHUNK) }, (_, i) =>
+    list.slice(i * CHUNK, (i + 1) * CHUNK),
+  );
+
+export interface ListRow extends ProposalRow {
+  authorLogin: string;
+  authorName: string;
+  deciderLogin: string | null;
+  deciderName: string | null;
+  itemCount: number;
+  kinds: string[];
+  speciesKeys: string[];
+  commentCount: number;
+  stale: boolean;
+}
+
+/** A derive item or derived revision is stale when an input is no longer the accepted value. */
+const staleItemSql = (items: string) =>
+  sql.raw(`exists (
+  select 1 from unnest(${items}.input_revision_ids) as i(id)
+  join revisions ir on ir.id = i.id where ir.status in ('superseded', 'retired'))`);
+
+export const proposalsRepository = {
+  async checkData(db: Queryable, items: readonly ProposalItemInput[]): Promise<CheckData> {
+    const keys = new Set<string>();
+    const sourceIds = new Set<number>();
+    const revisionIds = new Set<number>();
+    const cas: string[] = [];
+    const inchiKeys: string[] = [];
+    for (const i of items) {
+      if ('species' in i && i.species) keys.add(i.species);
+      if ('sourceId' in i && i.sourceId) sourceIds.add(Number(i.sourceId));
+      if (i.kind === 'retire_value' && i.revisionId) revisionIds.add(i.revisionId);
+      if (i.kind === 'add_species') {
+        keys.add(i.key);
+        if (i.casRn) cas.push(i.casRn);
+        if (i.inchiKey) inchiKeys.push(i.inchiKey);
+      }
+    }
+    const byIds = [...revisionIds];
+    const revRows = byIds.length
+      ? await db
+          .select({
+            id: revisions.id,
+            status: revisions.status,
+            speciesKey: species.key,
+            phase: speciesPhases.phase,
+            modification: speciesPhases.modification,
+            quantity: revisions.quantity,
+          })
+          .from(revisions)
+          .innerJoin(speciesPhases, eq(speciesPhases.id, revisions.speciesPhaseId))
+          .innerJoin(species, eq(species.id, speciesPhases.speciesId))
+          .where(inArray(revisions.id, byIds))
+      : [];
+    for (const r of revRows) keys.add(r.speciesKey);
+    const speciesRows: SpeciesData[] = [];
+    for (const part of chunks([...keys])) {
+      speciesRows.push(
+        ...(await db
+          .select({
+            id: species.id,
+            key: species.key,
+            name: species.name,
+            formula: species.formula,
+            charge: species.charge,
+            casRn: species.casRn,
+            inchiKey: species.inchiKey,
+          })
+          .from(species)
+          .where(inArray(species.key, part))),
+      );
+    }
+    const phases = new Map<
+      string,
+      { id: number; phase: StoredPhase; modification: string | null }[]
+    >();
+    const accepted = new Map<string, { id: number }>();
+    for (const part of chunks(speciesRows.map((s) => s.id))) {
+      const rows = await db
+        .select({
+          id: speciesPhases.id,
+          speciesId: speciesPhases.speciesId,
+          phase: speciesPhases.phase,
+          modification: speciesPhases.modification,
+        })
+        .from(speciesPhases)
+        .where(inArray(speciesPhases.speciesId, part));
+      const keyOf = new Map(speciesRows.map((s) => [s.id, s.key]));
+      for (const p of rows) {
+        const k = keyOf.get(p.speciesId)!;
+        const list = phases.get(k) ?? [];
+        list.push({ id: p.id, phase: p.phase, modification: p.modification });
+        phases.set(k, list);
+      }
+      for (const ids of chunks(rows.map((p) => p.id))) {
+        const acc = await db
+          .select({ id: revisions.id, sp: revisions.speciesPhaseId, quantity: revisions.quantity })
+          .from(revisions)
+          .where(and(inArray(revisions.speciesPhaseId, ids), eq(revisions.status, 'accepted')));
+        for (const a of acc) accepted.set(`${a.sp}|${a.quantity}`, { id: a.id });
+      }
+    }
+    const srcRows = sourceIds.size
+      ? await db
+          .select({ id: sources.id })
+          .from(sources)
+          .where(
+            inArray(
+              sources.id,
+              [...sourceIds].filter((n) => n <= 2_147_483_647),
+            ),
+          )
+      : [];
+    const similar = await similarSpecies(db, items, cas, inchiKeys);
+    return {
+      species: new Map(speciesRows.map((s) => [s.key, s])),
+      phases,
+      accepted,
+      revisionsById: new Map(revRows.map((r) => [r.id, r])),
+      sources: new Set(srcRows.map((s) => s.id)),
+      duplicates(item, hill) {
+        const out: { field: string; key: string; message: string }[] = [];
+        for (const s of similar) {
+          if (item.casRn && s.casRn === item.casRn)
+            out.push({
+              field: 'casRn',
+              key: s.key,
+              message: `${s.name} [${s.key}] already has CAS RN ${item.casRn}`,
+            });
+          else if (item.inchiKey && s.inchiKey === item.inchiKey)
+            out.push({
+              field: 'inchiKey',
+              key: s.key,
+              message: `${s.name} [${s.key}] already has InChIKey ${item.inchiKey}`,
+            });
+          else if (hill && s.formula === hill && s.name.toLowerCase() === item.name.toLowerCase())
+            out.push({
+              field: 'name',
+              key: s.key,
+              message: `${s.name} [${s.key}] has the same formula ${hill} and name: likely the same species`,
+            });
+        }
+        return out;
+      },
+    };
+  },
+
+  async speciesByKey(db: Queryable, key: string) {
+    const [row] = await db
+      .select({ formula: species.formula, charge: species.charge })
+      .from(species)
+      .where(eq(species.key, key));
+    return row;
+  },
+
+  /** An add_species item of the proposal, for the species it will create. */
+  async addedSpecies(db: Queryable, proposalId: number, key: string) {
+    const [row] = await db
+      .select({ input: proposalItems.input })
+      .from(proposalItems)
+      .where(
+        and(
+          eq(proposalItems.proposalId, proposalId),
+          eq(proposalItems.kind, 'add_species'),
+          eq(proposalItems.speciesKey, key),
+        ),
+      );
+    return row?.input as { formula: string; charge: number } | undefined;
+  },
+
+  async insertProposal(tx: Tx, authorId: number, rationale: string): Promise<ProposalRow> {
+    const [row] = await tx.insert(proposals).values({ authorId, rationale }).returning();
+    return row!;
+  },
+
+  async insertItems(tx: Tx, proposalId: number, items: readonly ResolvedItem[]): Promise<void> {
+    for (const part of chunks(items)) {
+      await tx.insert(proposalItems).values(
+        part.map((i) => ({
+          proposalId,
+          seq: i.seq,
+          kind: i.kind,
+          input: i.input as Record<string, unknown>,
+          speciesKey: i.speciesKey,
+          phase: i.phase,
+          modification: i.modification,
+          quantity: i.quantity,
+          value: i.value,
+          uncertainty: i.uncertainty,
+          sourceId: i.sourceId,
+          targetRevisionId: i.targetRevisionId,
+          derivation: i.derivation,
+          inputRevisionIds: i.inputRevisionIds,
+        })),
+      );
+    }
+  },
+
+  async deleteItems(tx: Tx, proposalId: number): Promise<void> {
+    await tx.delete(proposalItems).where(eq(proposalItems.proposalId, proposalId));
+  },
+
+  async lock(tx: Tx, id: number): Promise<ProposalRow | undefined> {
+    const [row] = await tx.select().from(proposals).where(eq(proposals.id, id)).for('update');
+    return row;
+  },
+
+  async find(db: Queryable, id: number): Promise<ProposalRow | undefined> {
+    const [row] = await db.select().from(proposals).where(eq(proposals.id, id));
+    return row;
+  },
+
+  itemsOf(db: Queryable, proposalId: number): Promise<ProposalItemRow[]> {
+    return db
+      .select()
+      .from(proposalItems)
+      .where(eq(proposalItems.proposalId, proposalId))
+      .orderBy(asc(proposalItems.seq));
+  },
+
+  async update(
+    tx: Tx,
+    id: number,
+    patch: Partial<
+      Pick<ProposalRow, 'status' | 'rationale' | 'submittedAt' | 'decidedBy' | 'decidedAt'>
+    >,
+  ): Promise<ProposalRow> {
+    const [row] = await tx
+      .update(proposals)
+      .set({ ...patch, updatedAt: sql`now()` })
+      .where(eq(proposals.id, id))
+      .returning();
+    return row!;
+  },
+
+  async setItem(
+    tx: Tx,
+    itemId: number,
+    patch: Partial<Pick<ProposalItemRow, 'targetRevisionId' | 'createdRevisionId'>>,
+  ): Promise<void> {
+    await tx.update(proposalItems).set(patch).where(eq(proposalItems.id, itemId));
+  },
+
+  async insertComment(
+    tx: Tx,
+    c: Pick<ProposalCommentRow, 'proposalId' | 'authorId' | 'body' | 'decision'>,
+  ): Promise<ProposalCommentRow> {
+    const [row] = await tx.insert(proposalComments).values(c).returning();
+    return row!;
+  },
+
+  commentsOf(db: Queryable, proposalId: number) {
+    return db
+      .select({
+        comment: proposalComments,
+        login: users.login,
+        name: users.name,
+      })
+      .from(proposalComments)
+      .innerJoin(users, eq(users.id, proposalComments.authorId))
+      .where(eq(proposalComments.proposalId, proposalId))
+      .orderBy(asc(proposalComments.createdAt), asc(proposalComments.id));
+  },
+
+  /** Users for event payloads: the author, the actor and everyone in the thread. */
+  async participants(db: Queryable, proposalId: number) {
+    return db
+      .selectDistinct({ id: users.id, login: users.login, name: users.name, email: users.email })
+      .from(users)
+      .where(
+        or(
+          sql`${users.id} in (select author_id from proposal_comments where proposal_id = ${proposalId})`,
+          sql`${users.id} in (select decided_by from proposals where id = ${proposalId})`,
+        ),
+      );
+  },
+
+  async userById(db: Queryable, id: number) {
+    const [u] = await db
+      .select({ id: users.id, login: users.login, name: users.name, email: users.email })
+      .from(users)
+      .where(eq(users.id, id));
+    return u!;
+  },
+
+  /** The review queue: filtered, sorted, paged; drafts only for their author. */
+  async list(
+    db: Queryable,
+    viewerId: number,
+    q: Pick<ProposalListQuery, 'sort' | 'order' | 'offset' | 'limit'> & Partial<ProposalListQuery>,
+    ids?: number[],
+  ): Promise<{ rows: ListRow[]; total: number }> {
+    const where: SQL[] = [sql`(p.status <> 'draft' or p.author_id = ${viewerId})`];
+    if (ids)
+      where.push(
+        sql`p.id in (${sql.join(
+          ids.map((i) => sql`${i}`),
+          sql`, `,
+        )})`,
+      );
+    if (q.status)
+      where.push(
+        sql`p.status in (${sql.join(
+          q.status.map((s: ProposalStatus) => sql`${s}`),
+          sql`, `,
+        )})`,
+      );
+    if (q.author === 'me') where.push(sql`p.author_id = ${viewerId}`);
+    else if (q.author) where.push(sql`a.login = ${q.author}`);
+    if (q.species)
+      where.push(
+        sql`exists (select 1 from proposal_items x where x.proposal_id = p.id and x.species_key = ${q.species})`,
+      );
+    const staleExpr = sql`exists (select 1 from proposal_items x where x.proposal_id = p.id and x.kind = 'derive_value' and ${staleItemSql('x')})`;
+    if (q.stale === 'true') where.push(staleExpr);
+    if (q.stale === 'false') where.push(sql`not ${staleExpr}`);
+    const column = {
+      updatedAt: 'p.updated_at',
+      createdAt: 'p.created_at',
+      submittedAt: 'p.submitted_at',
+      id: 'p.id',
+      status: 'p.status',
+    }[q.sort];
+    const order = sql.raw(
+      `${column} ${q.order === 'asc' ? 'asc' : 'desc'} nulls last, p.id ${q.order}`,
+    );
+    const from = sql`from proposals p
+      join users a on a.id = p.author_id
+      left join users d on d.id = p.decided_by
+      where ${sql.join(where, sql` and `)}`;
+    const { rows } = await db.execute<Record<string, unknown>>(sql`
+      select p.id, p.author_id, p.rationale, p.status, p.created_at, p.updated_at, p.submitted_at,
+             p.decided_by, p.decided_at, a.login as author_login, a.name as author_name,
+             d.login as decider_login, d.name as decider_name,
+             (select count(*)::int from proposal_items x where x.proposal_id = p.id) as item_count,
+             (select coalesce(array_agg(distinct x.kind::text), '{}') from proposal_items x where x.proposal_id = p.id) as kinds,
+             (select coalesce(array_agg(k), '{}') from (select distinct x.species_key as k from proposal_items x
+                where x.proposal_id = p.id and x.species_key is not null order by 1 limit 5) s) as species_keys,
+             (select count(*)::int from proposal_comments c where c.proposal_id = p.id) as comment_count,
+             ${staleExpr} as stale
+      ${from}
+      order by ${order}
+      offset ${q.offset} limit ${q.limit}`);
+    const [{ total }] = (
+      await db.execute<{ total: number }>(sql`select count(*)::int as total ${from}`)
+    ).rows as [{ total: number }];
+    const date = (v: unknown) => (v == null ? null : new Date(v as string));
+    const list = rows.map((r): ListRow => ({
+      id: r.id as number,
+      authorId: r.author_id as number,
+      rationale: r.rationale as string,
+      status: r.status as ProposalStatus,
+      createdAt: date(r.created_at)!,
+      updatedAt: date(r.updated_at)!,
+      submittedAt: date(r.submitted_at),
+      decidedBy: r.decided_by as number | null,
+      decidedAt: date(r.decided_at),
+      authorLogin: r.author_login as string,
+      authorName: r.author_name as string,
+      deciderLogin: r.decider_login as string | null,
+      deciderName: r.decider_name as string | null,
+      itemCount: r.item_count as number,
+      kinds: r.kinds as string[],
+      speciesKeys: r.species_keys as string[],
+      commentCount: r.comment_count as number,
+      stale: r.stale as boolean,
+    }));
+    return { rows: list, total };
+  },
+};
+
+async function similarSpecies(
+  db: Queryable,
+  items: readonly ProposalItemInput[],
+  cas: string[],
+  inchiKeys: string[],
+) {
+  const adds = items.filter((i) => i.kind === 'add_species');
+  if (adds.length === 0) return [];
+  const names = adds.map((i) => i.name.toLowerCase());
+  const conditions: SQL[] = [inArray(sql`lower(${species.name})`, names)];
+  if (cas.length) conditions.push(inArray(species.casRn, cas));
+  if (inchiKeys.length) conditions.push(inArray(species.inchiKey, inchiKeys));
+  return db
+    .select({
+      key: species.key,
+      name: species.name,
+      formula: species.formula,
+      casRn: species.casRn,
+      inchiKey: species.inchiKey,
+    })
+    .from(species)
+    .where(or(...conditions));
+}

@@ -1,0 +1,449 @@
+import type { ProposalRow, UserRow } from '../../../../schema';
+import { pgErrorCode, type Database, type Tx } from '../../db/client';
+import { AppError, forbidden, notFound } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit-repository';
+import type { ReleaseSnapshot } from '../releases/release-snapshot';
+import { hasRole } from '../users/roles';
+import { usersRepository } from '../users/users-repository';
+import { snapshotSource, type SnapshotSource } from './derivation';
+import { checkAndResolve } from './item-check';
+import { applyItems, staleError, staleReasons } from './proposal-approval';
+import { buildDetail, toSummary } from './proposal-detail';
+import {
+  ignoreProposalEvents,
+  type EventUser,
+  type ProposalEvent,
+  type ProposalEventSink,
+} from './proposal-events';
+import { proposalsRepository } from './proposals-repository';
+import type {
+  CheckAnswer,
+  CommentAnswer,
+  CreateAnswer,
+  CreateProposalBody,
+  Decision,
+  ItemIssue,
+  ProposalDetail,
+  ProposalList,
+  ProposalListQuery,
+  ProposalStatus,
+  TransitionAnswer,
+} from './proposals-schemas';
+import { createRederive } from './rederive';
+
+/**
+ * Curation: proposals from draft to decision. Every transition is one transaction that locks
+ * the proposal row, re-checks the actor's role under lock, writes its audit row and hands its
+ * event to the sink — all or nothing.
+ *
+ * For other modules (bulk upload):
+ * - `checkItems(dbOrTx, items)` validates raw items (zod shape, then the registry: species,
+ *   phases, sources, formulas, identifiers, targets, derivations) without saving and returns
+ *   `ItemIssue[]` (`{index, path, code, message}`, path like `items[3].casRn`); empty = valid.
+ * - `createDraftIn(tx, actor, {rationale, items})` creates a draft proposal with its audit row
+ *   inside the caller's transaction; throws 422 `invalid_items` (details.issues) when any item
+ *   fails, 403 when the actor is no longer a curator. Returns `{id, status: 'draft', warnings}`.
+ */
+
+type Actor = Pick<UserRow, 'id'>;
+type Queryable = Database | Tx;
+
+export interface ItemCheckOptions {
+  /** Published snapshots (the releases service's cache); loaded directly when absent. */
+  published?: (version: string) => Promise<ReleaseSnapshot>;
+}
+
+export async function checkItems(
+  db: Queryable,
+  items: readonly unknown[],
+  options: ItemCheckOptions = {},
+): Promise<ItemIssue[]> {
+  return (await checkAndResolve(db, items, snapshotSource(db, options.published))).issues;
+}
+
+const invalidItems = (issues: ItemIssue[]) =>
+  new AppError(
+    422,
+    'invalid_items',
+    `${issues.length} problem${issues.length === 1 ? '' : 's'} in the items: ${issues
+      .slice(0, 3)
+      .map((i) => `${i.path}: ${i.message}`)
+      .join('; ')}`,
+    { issues },
+  );
+
+export async function createDraftIn(
+  tx: Tx,
+  actor: Actor,
+  input: CreateProposalBody,
+  options: ItemCheckOptions = {},
+): Promise<CreateAnswer> {
+  await usersRepository.assertActorRoleLocked(tx, actor.id, 'curator');
+  const checked = await checkAndResolve(tx, input.items, snapshotSource(tx, options.published));
+  if (checked.issues.length) throw invalidItems(checked.issues);
+  const row = await proposalsRepository.insertProposal(tx, actor.id, input.rationale);
+  await proposalsRepository.insertItems(tx, row.id, checked.items);
+  await recordAudit(tx, {
+    actorId: actor.id,
+    action: 'proposal.created',
+    entityType: 'proposal',
+    entityId: row.id,
+    after: { status: 'draft', rationale: input.rationale, items: checked.items.length },
+  });
+  return { id: row.id, status: 'draft', warnings: checked.warnings };
+}
+
+export interface ProposalsServiceDeps {
+  db: Database;
+  releases: { getSnapshot(version: string): Promise<ReleaseSnapshot> };
+  onEvent?: ProposalEventSink;
+}
+
+const FINAL: ProposalStatus[] = ['approved', 'rejected', 'withdrawn'];
+const DECIDED_STATUS: Record<Decision, ProposalStatus> = {
+  approve: 'approved',
+  reject: 'rejected',
+  request_changes: 'changes_requested',
+};
+
+export function createProposalsService({ db, releases, onEvent }: ProposalsServiceDeps) {
+  const sink = onEvent ?? ignoreProposalEvents;
+  const published = (v: string) => releases.getSnapshot(v);
+  const snapshots = (q: Queryable): SnapshotSource => snapshotSource(q, published);
+
+  /** Locks the proposal; drafts are their author's alone (others get 404). */
+  async function lockVisible(tx: Tx, id: number, actor: Actor): Promise<ProposalRow> {
+    const p = await proposalsRepository.lock(tx, id);
+    if (!p || (p.status === 'draft' && p.authorId !== actor.id)) throw notFound(`Proposal ${id}`);
+    return p;
+  }
+
+  const mustBeAuthor = (p: ProposalRow, actor: Actor, what: string) => {
+    if (p.authorId !== actor.id) throw forbidden(`Only the author may ${what} this proposal`);
+  };
+
+  const wrongState = (p: ProposalRow, what: string) =>
+    FINAL.includes(p.status)
+      ? new AppError(409, 'already_decided', `Proposal ${p.id} is already ${p.status}`, {
+          status: p.status,
+        })
+      : new AppError(409, 'invalid_transition', `A ${p.status} proposal cannot be ${what}`, {
+          status: p.status,
+        });
+
+  async function emit(tx: Tx, p: ProposalRow, actor: Actor, event: EventDetails) {
+    // One connection: the transaction's queries run one after another.
+    const author = await proposalsRepository.userById(tx, p.authorId);
+    const actorUser = await proposalsRepository.userById(tx, actor.id);
+    const participants = await proposalsRepository.participants(tx, p.id);
+    await sink(tx, { ...baseOf(p, actorUser, author, participants), ...event } as ProposalEvent);
+  }
+
+  const audit = (
+    tx: Tx,
+    actor: Actor,
+    p: ProposalRow,
+    action: string,
+    before: unknown,
+    after: unknown,
+  ) =>
+    recordAudit(tx, {
+      actorId: actor.id,
+      action,
+      entityType: 'proposal',
+      entityId: p.id,
+      before,
+      after,
+    });
+
+  const transition = (p: ProposalRow, extra: Partial<TransitionAnswer> = {}): TransitionAnswer => ({
+    id: p.id,
+    status: p.status,
+    createdRevisionIds: [],
+    warnings: [],
+    ...extra,
+  });
+
+  const service = {
+    async check(items: readonly unknown[]): Promise<CheckAnswer> {
+      const r = await checkAndResolve(db, items, snapshots(db));
+      return { ok: r.issues.length === 0, issues: r.issues, warnings: r.warnings };
+    },
+
+    create: (actor: Actor, input: CreateProposalBody) =>
+      db.transaction((tx) => createDraftIn(tx, actor, input, { published })),
+
+    /** PUT/PATCH: a draft or a proposal sent back for changes; items are checked again. */
+    revise: (actor: Actor, id: number, input: { rationale?: string; items?: unknown[] }) =>
+      db.transaction(async (tx) => {
+        await usersRepository.assertActorRoleLocked(tx, actor.id, 'curator');
+        const p = await lockVisible(tx, id, actor);
+        mustBeAuthor(p, actor, 'revise');
+        if (p.status !== 'draft' && p.status !== 'changes_requested')
+          throw wrongState(p, 'revised');
+        let warnings: TransitionAnswer['warnings'] = [];
+        if (input.items) {
+          const checked = await checkAndResolve(tx, input.items, snapshots(tx));
+          if (checked.issues.length) throw invalidItems(checked.issues);
+          await proposalsRepository.deleteItems(tx, id);
+          await proposalsRepository.insertItems(tx, id, checked.items);
+          warnings = checked.warnings;
+        }
+        const row = await proposalsRepository.update(tx, id, {
+          rationale: input.rationale ?? p.rationale,
+        });
+        await audit(
+          tx,
+          actor,
+          p,
+          'proposal.revised',
+          { rationale: p.rationale },
+          {
+            rationale: row.rationale,
+            items: input.items?.length ?? null,
+          },
+        );
+        return transition(row, { warnings });
+      }),
+
+    /** Submits for review; items are re-checked and their targets fixed now. */
+    submit: (actor: Actor, id: number) =>
+      db.transaction(async (tx) => {
+        await usersRepository.assertActorRoleLocked(tx, actor.id, 'curator');
+        const p = await lockVisible(tx, id, actor);
+        mustBeAuthor(p, actor, 'submit');
+        if (p.status !== 'draft' && p.status !== 'changes_requested')
+          throw wrongState(p, 'submitted');
+        const items = await proposalsRepository.itemsOf(tx, id);
+        const checked = await checkAndResolve(
+          tx,
+          items.map((i) => i.input),
+          snapshots(tx),
+        );
+        if (checked.issues.length) throw invalidItems(checked.issues);
+        await proposalsRepository.deleteItems(tx, id);
+        await proposalsRepository.insertItems(tx, id, checked.items);
+        const row = await proposalsRepository.update(tx, id, {
+          status: 'submitted',
+          submittedAt: new Date(),
+          decidedBy: null,
+          decidedAt: null,
+        });
+        await audit(
+          tx,
+          actor,
+          p,
+          'proposal.submitted',
+          { status: p.status },
+          { status: row.status },
+        );
+        await emit(tx, row, actor, {
+          type: 'submitted',
+          status: row.status,
+          itemCount: items.length,
+        });
+        return transition(row, { warnings: checked.warnings });
+      }),
+
+    withdraw: (actor: Actor, id: number) =>
+      db.transaction(async (tx) => {
+        const p = await lockVisible(tx, id, actor);
+        mustBeAuthor(p, actor, 'withdraw');
+        if (FINAL.includes(p.status)) throw wrongState(p, 'withdrawn');
+        const row = await proposalsRepository.update(tx, id, { status: 'withdrawn' });
+        await audit(
+          tx,
+          actor,
+          p,
+          'proposal.withdrawn',
+          { status: p.status },
+          { status: row.status },
+        );
+        await emit(tx, row, actor, { type: 'withdrawn', status: row.status });
+        return transition(row);
+      }),
+
+    comment: (actor: UserRow, id: number, body: string): Promise<CommentAnswer> =>
+      db.transaction(async (tx) => {
+        const p = await lockVisible(tx, id, actor);
+        if (p.authorId !== actor.id)
+          await usersRepository.assertActorRoleLocked(tx, actor.id, 'curator');
+        const c = await proposalsRepository.insertComment(tx, {
+          proposalId: id,
+          authorId: actor.id,
+          body,
+          decision: null,
+        });
+        await proposalsRepository.update(tx, id, {});
+        await audit(tx, actor, p, 'proposal.commented', null, { commentId: c.id });
+        await emit(tx, p, actor, { type: 'commented', commentId: c.id, body });
+        return {
+          comment: {
+            id: c.id,
+            author: { id: actor.id, login: actor.login, name: actor.name },
+            body: c.body,
+            decision: null,
+            createdAt: c.createdAt.toISOString(),
+          },
+        };
+      }),
+
+    /**
+     * approve / reject / request_changes by an editor who is not the author. Exactly one
+     * decision wins: the proposal row is locked and its status checked under the lock. Approve
+     * and reject are refused with 409 `stale` when a target was superseded since submission
+     * (request_changes stays possible: it hands the proposal back to be revised).
+     */
+    async decide(
+      actor: Actor,
+      id: number,
+      decision: Decision,
+      comment: string,
+    ): Promise<TransitionAnswer> {
+      try {
+        return await db.transaction(async (tx) => {
+          await usersRepository.assertActorRoleLocked(tx, actor.id, 'editor');
+          const p = await lockVisible(tx, id, actor);
+          if (p.authorId === actor.id)
+            throw new AppError(
+              403,
+              'own_proposal',
+              'Nobody decides their own proposal: another editor must review it',
+            );
+          if (p.status !== 'submitted') {
+            throw p.status === 'draft'
+              ? new AppError(
+                  409,
+                  'not_submitted',
+                  `Proposal ${id} is a draft: it has not been submitted`,
+                )
+              : new AppError(
+                  409,
+                  'already_decided',
+                  `Proposal ${id} was already decided: it is ${p.status}`,
+                  { status: p.status },
+                );
+          }
+          const items = await proposalsRepository.itemsOf(tx, id);
+          if (decision !== 'request_changes') {
+            const reasons = await staleReasons(tx, items);
+            if (reasons.length) throw staleError(reasons);
+          }
+          const created = decision === 'approve' ? await applyItems(tx, items, p.authorId) : [];
+          const row = await proposalsRepository.update(tx, id, {
+            status: DECIDED_STATUS[decision],
+            decidedBy: actor.id,
+            decidedAt: new Date(),
+          });
+          const c = await proposalsRepository.insertComment(tx, {
+            proposalId: id,
+            authorId: actor.id,
+            body: comment,
+            decision,
+          });
+          await audit(
+            tx,
+            actor,
+            p,
+            'proposal.decided',
+            { status: p.status },
+            {
+              status: row.status,
+              decision,
+              commentId: c.id,
+              createdRevisionIds: created,
+            },
+          );
+          await emit(tx, row, actor, {
+            type: 'decided',
+            decision,
+            status: row.status,
+            comment,
+            commentId: c.id,
+            createdRevisionIds: created,
+          });
+          return transition(row, { createdRevisionIds: created });
+        });
+      } catch (err) {
+        throw conflictOf(err);
+      }
+    },
+
+    async list(actor: UserRow, q: ProposalListQuery): Promise<ProposalList> {
+      const { rows, total } = await proposalsRepository.list(db, actor.id, q);
+      return { proposals: rows.map(toSummary), total, offset: q.offset, limit: q.limit };
+    },
+
+    async detail(actor: UserRow, id: number): Promise<ProposalDetail> {
+      const p = await proposalsRepository.find(db, id);
+      if (!p || (p.status === 'draft' && p.authorId !== actor.id)) throw notFound(`Proposal ${id}`);
+      if (p.authorId !== actor.id && !hasRole(actor.role, 'curator')) throw forbidden();
+      const { rows } = await proposalsRepository.list(
+        db,
+        actor.id,
+        { sort: 'id', order: 'asc', offset: 0, limit: 1 },
+        [id],
+      );
+      const items = await proposalsRepository.itemsOf(db, id);
+      const open =
+        p.status === 'draft' || p.status === 'changes_requested' || p.status === 'submitted';
+      const warnings = open
+        ? (
+            await checkAndResolve(
+              db,
+              items.map((i) => i.input),
+              snapshots(db),
+            )
+          ).warnings
+        : [];
+      return buildDetail(db, p, toSummary(rows[0]!), actor, snapshots(db), warnings);
+    },
+  };
+  return {
+    ...service,
+    rederive: createRederive(db, (tx, actor, input) =>
+      createDraftIn(tx, actor, input, { published }),
+    ),
+  };
+}
+
+type BaseKey = 'proposalId' | 'actorId' | 'actor' | 'author' | 'title' | 'participants' | 'at';
+/** An event without what `emit` fills in. */
+type EventDetails = ProposalEvent extends infer E
+  ? E extends ProposalEvent
+    ? Omit<E, BaseKey>
+    : never
+  : never;
+
+function baseOf(p: ProposalRow, actor: EventUser, author: EventUser, participants: EventUser[]) {
+  return {
+    proposalId: p.id,
+    actorId: actor.id,
+    actor,
+    author,
+    title: p.rationale.split('\n', 1)[0]!.slice(0, 200),
+    participants: participants.filter((u) => u.id !== author.id && u.id !== actor.id),
+    at: new Date(),
+  };
+}
+
+/** A unique index that refused an approval: a concurrent change got there first. */
+function conflictOf(err: unknown): unknown {
+  if (pgErrorCode(err) !== '23505') return err;
+  const constraint = (err as { cause?: { constraint?: string } }).cause?.constraint ?? '';
+  if (constraint === 'revisions_one_accepted_idx')
+    return new AppError(
+      409,
+      'stale',
+      'Another value of the same species-phase was accepted meanwhile',
+      { constraint },
+    );
+  return new AppError(
+    409,
+    'duplicate_species',
+    'A species with the same key, CAS RN or InChIKey exists already',
+    { constraint },
+  );
+}
+
+export type ProposalsService = ReturnType<typeof createProposalsService>;
