@@ -25,6 +25,7 @@ import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
 import { createReleaseDraftsModule } from './modules/releases/release-drafts-router';
 import { createReleasesModule } from './modules/releases/releases-router';
+import { createProposalsModule } from './modules/proposals/proposals-router';
 import { createTokensModule } from './modules/tokens/tokens-router';
 import { createUsersModule } from './modules/users/users-router';
 import { createWatchlistsModule } from './modules/watchlists/watchlists-router';
@@ -88,6 +89,7 @@ export function createApp(deps: AppDeps): Express {
   });
   const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
+  const proposals = createProposalsModule({ db: database.db, releases: releases.service });
   const watchlists = createWatchlistsModule({ db: database.db, reactions: reactions.service });
 
   // Before any session: health answers while the database is down, and static files and the
@@ -114,6 +116,7 @@ export function createApp(deps: AppDeps): Express {
     reactions.router,
     species.router,
     search.router,
+    proposals.router,
     tokens.router,
     watchlists.router,
   );
@@ -187,17 +190,3 @@ function serveClient(app: Express, dist: string): void {
     res.sendFile(index);
   });
 }
-import { fileStoreFor } from './adapters/file-store';
-import { createSourcesModule } from './modules/sources/sources-router';
-import { createProposalsModule } from './modules/proposals/proposals-router';
-import { createUploadsModule } from './modules/uploads/uploads-router';
-  const proposals = createProposalsModule({ db: database.db, releases: releases.service });
-  const sources = createSourcesModule({
-    db: database.db,
-    doiBaseUrl: config.doiBaseUrl,
-    files: adapters.fileStore ?? fileStoreFor(config.fileStore),
-  });
-  const uploads = createUploadsModule({ db: database.db, releases: releases.service });
-    proposals.router,
-    uploads.router,
-    sources.router,
