@@ -29,6 +29,17 @@ export const routes: Routes = [
       import('./features/curation/curation.routes').then((m) => m.CURATION_ROUTES),
   },
   {
+    path: 'audit',
+    canMatch: [roleGuard('editor', 'admin')],
+    loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),
+  },
+  {
+    path: 'settings',
+    canMatch: [roleGuard('reader', 'curator', 'editor', 'admin')],
+    loadChildren: () =>
+      import('./features/settings/settings.routes').then((m) => m.SETTINGS_ROUTES),
+  },
+  {
     path: 'admin',
     canMatch: [roleGuard('admin')],
     loadChildren: () => import('./features/admin/admin.routes').then((m) => m.ADMIN_ROUTES),

@@ -3,6 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatMenuHarness } from '@angular/material/menu/testing';
 import { provideRouter, Router } from '@angular/router';
 
 import { errorInterceptor } from '../error-interceptor';
@@ -101,6 +102,27 @@ describe('Shell', () => {
 
     expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('editor');
+  });
+
+  it('shows the Audit log link to editors and admins only', async () => {
+    await signIn(editor);
+    expect(navLabels()).toContain('Audit log');
+    expect(element.querySelector('nav a[href="/audit"]')).not.toBeNull();
+  });
+
+  it.each(['reader', 'curator'] as const)('hides the Audit log link from a %s', async (role) => {
+    await signIn({ ...editor, role });
+    expect(navLabels()).not.toContain('Audit log');
+  });
+
+  it('offers Settings in the account menu of a signed-in user', async () => {
+    await signIn({ ...editor, role: 'reader' });
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const menu = await loader.getHarness(MatMenuHarness.with({ selector: '.account-menu' }));
+    await menu.open();
+    const [settings] = await menu.getItems();
+    expect(await settings.getText()).toContain('Settings');
+    expect(await (await settings.host()).getAttribute('href')).toBe('/settings');
   });
 
   it('signs out with POST /auth/logout, reloads the session and goes home', async () => {
