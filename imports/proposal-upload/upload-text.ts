@@ -84,9 +84,7 @@ export function decodeUpload(bytes: Uint8Array): string {
   }
 }
 
-/** XML when the name says so or the text opens with `<`; CSV otherwise. */
+/** XML when the text opens with `<` (no CSV header does) or the name ends in .xml; else CSV. */
 export function detectFormat(text: string, fileName = ''): UploadFormat {
-  if (/\.xml$/i.test(fileName)) return 'xml';
-  if (/\.csv$/i.test(fileName)) return 'csv';
-  return text.trimStart().startsWith('<') ? 'xml' : 'csv';
+  return text.trimStart().startsWith('<') || /\.xml$/i.test(fileName) ? 'xml' : 'csv';
 }

@@ -25,9 +25,11 @@ import { createSpeciesModule } from './modules/species/species-router';
 import { createReactionsModule } from './modules/reactions/reactions-router';
 import { createReleaseDraftsModule } from './modules/releases/release-drafts-router';
 import { createReleasesModule } from './modules/releases/releases-router';
+import { createProposalNotifier } from './modules/notifications/proposal-notifications';
 import { createProposalsModule } from './modules/proposals/proposals-router';
 import { createTokensModule } from './modules/tokens/tokens-router';
 import { createUsersModule } from './modules/users/users-router';
+import { createUploadsModule } from './modules/uploads/uploads-router';
 import { createWatchlistsModule } from './modules/watchlists/watchlists-router';
 import { thermoJsonReplacer } from './thermo';
 
@@ -89,7 +91,12 @@ export function createApp(deps: AppDeps): Express {
   });
   const search = createSearchModule({ db: database.db, releases: releases.service });
   const reactions = createReactionsModule({ snapshots: (v) => releases.service.getSnapshot(v) });
-  const proposals = createProposalsModule({ db: database.db, releases: releases.service });
+  const proposals = createProposalsModule({
+    db: database.db,
+    releases: releases.service,
+    onEvent: createProposalNotifier({ publicUrl: config.publicUrl }),
+  });
+  const uploads = createUploadsModule({ db: database.db, releases: releases.service });
   const watchlists = createWatchlistsModule({ db: database.db, reactions: reactions.service });
 
   // Before any session: health answers while the database is down, and static files and the
@@ -116,6 +123,7 @@ export function createApp(deps: AppDeps): Express {
     reactions.router,
     species.router,
     search.router,
+    uploads.router,
     proposals.router,
     tokens.router,
     watchlists.router,

@@ -1,6 +1,10 @@
-import { and, eq, inArray, or, sql } from 'drizzle-orm';
+import { and, eq, or, sql, type Column } from 'drizzle-orm';
 import { revisions, sources, species, speciesPhases } from '../../../../schema';
 import type { Queryable } from '../releases/releases-repository';
+
+/** `column = any($1)` with the list as one array parameter: 20,000 keys stay one parameter. */
+const anyOf = (column: Column, values: readonly (string | number)[], type: 'text' | 'int') =>
+  sql`${column} = any(${sql.param(values)}::${sql.raw(type)}[])`;
 
 /** Reads an upload checks against: the species, sources and accepted values it names. */
 export const uploadsRepository = {
@@ -10,7 +14,7 @@ export const uploadsRepository = {
     const rows = await db
       .select({ key: species.key, formula: species.formula })
       .from(species)
-      .where(inArray(species.key, [...keys]));
+      .where(anyOf(species.key, keys, 'text'));
     return new Map(rows.map((r) => [r.key, r.formula]));
   },
 
@@ -27,8 +31,8 @@ export const uploadsRepository = {
       .from(sources)
       .where(
         or(
-          keys.length > 0 ? inArray(sources.key, keys) : sql`false`,
-          ids.length > 0 ? inArray(sources.id, ids) : sql`false`,
+          keys.length > 0 ? anyOf(sources.key, keys, 'text') : sql`false`,
+          ids.length > 0 ? anyOf(sources.id, ids, 'int') : sql`false`,
         ),
       );
     const out = new Map<string, number>();
@@ -55,7 +59,7 @@ export const uploadsRepository = {
       .from(revisions)
       .innerJoin(speciesPhases, eq(speciesPhases.id, revisions.speciesPhaseId))
       .innerJoin(species, eq(species.id, speciesPhases.speciesId))
-      .where(and(eq(revisions.status, 'accepted'), inArray(species.key, [...keys])));
+      .where(and(eq(revisions.status, 'accepted'), anyOf(species.key, keys, 'text')));
     return new Set(rows.map((r) => valueKey(r.key, r.phase, r.modification, r.quantity)));
   },
 };

@@ -4,6 +4,8 @@ import type { Database } from '../../db/client';
 import { AppError } from '../../lib/app-error';
 import { requireRole } from '../../middleware/require-role';
 import { validate } from '../../middleware/validate';
+import { checkItems, createDraftIn } from '../proposals/proposals-service';
+import type { ReleaseSnapshot } from '../releases/release-snapshot';
 import { UPLOAD_MAX_BYTES, UploadFields, UploadQuery } from './uploads-schemas';
 import { createUploadsService, type ProposalsPort, type UploadsService } from './uploads-service';
 
@@ -49,8 +51,19 @@ export function uploadsRouter(uploads: UploadsService): Router {
   return router;
 }
 
+export interface UploadsModuleDeps {
+  db: Database;
+  /** Published snapshots (the releases service's cache), for the items' derivation checks. */
+  releases: { getSnapshot(version: string): Promise<ReleaseSnapshot> };
+}
+
 /** Bulk upload of proposal items: dry run and submit (mounted under /api/v1). */
-export function createUploadsModule(deps: { db: Database; proposals: ProposalsPort }) {
-  const service = createUploadsService(deps.db, deps.proposals);
+export function createUploadsModule({ db, releases }: UploadsModuleDeps) {
+  const published = (v: string) => releases.getSnapshot(v);
+  const proposals: ProposalsPort = {
+    checkItems: (q, items) => checkItems(q, items, { published }),
+    createDraftIn: (tx, actor, input) => createDraftIn(tx, actor, input, { published }),
+  };
+  const service = createUploadsService(db, proposals);
   return { service, router: uploadsRouter(service) };
 }

@@ -7,11 +7,11 @@ import {
 } from '../../../../imports/proposal-upload';
 import type { Database, Tx } from '../../db/client';
 import { AppError } from '../../lib/app-error';
-import {
+import type {
+  CreateProposalBody,
+  ItemIssue,
+  ItemWarning,
   ProposalItemInput,
-  type CreateProposalBody,
-  type ItemIssue,
-  type ItemWarning,
 } from '../proposals/proposals-schemas';
 import type { Queryable } from '../releases/releases-repository';
 import { entryToItem } from './upload-items';
@@ -20,11 +20,12 @@ import type { PreviewRow, UploadCreated, UploadPreview } from './uploads-schemas
 
 /** The proposals core as an upload uses it: the same checks and draft creation as the form. */
 export interface ProposalsPort {
-  checkItems(
-    db: Queryable,
-    items: readonly ProposalItemInput[],
-  ): Promise<{ issues: ItemIssue[]; warnings: ItemWarning[] }>;
-  createDraftIn(tx: Tx, actor: Express.User, input: CreateProposalBody): Promise<{ id: number }>;
+  checkItems(db: Queryable, items: readonly ProposalItemInput[]): Promise<ItemIssue[]>;
+  createDraftIn(
+    tx: Tx,
+    actor: Express.User,
+    input: CreateProposalBody,
+  ): Promise<{ id: number; warnings: ItemWarning[] }>;
 }
 
 export interface UploadFile {
@@ -90,11 +91,13 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
       }
     })();
     const keys = unique(raw.rows.flatMap((r) => [r.cells.species, r.cells.key]));
-    const [formulas, sourceIds, accepted] = await Promise.all([
-      uploadsRepository.speciesFormulas(q, keys),
-      uploadsRepository.sourceIds(q, unique(raw.rows.map((r) => r.cells.source))),
-      uploadsRepository.acceptedQuantities(q, keys),
-    ]);
+    // One after another: inside the submit's transaction they share one connection.
+    const formulas = await uploadsRepository.speciesFormulas(q, keys);
+    const sourceIds = await uploadsRepository.sourceIds(
+      q,
+      unique(raw.rows.map((r) => r.cells.source)),
+    );
+    const accepted = await uploadsRepository.acceptedQuantities(q, keys);
     const checked: CheckedUpload = checkRows(raw, {
       species: formulas,
       sources: new Set(sourceIds.keys()),
@@ -112,22 +115,9 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
           ...(column === undefined ? {} : { column }),
         });
     };
-    items.forEach((item, i) => {
-      const res = ProposalItemInput.safeParse(item);
-      if (!res.success)
-        for (const issue of res.error.issues)
-          onItem(i, {
-            code: 'invalid_item',
-            message: issue.message,
-            path: `items[${i}].${issue.path.join('.')}`,
-          });
-    });
-    let warnings: ItemWarning[] = [];
-    if (items.length > 0) {
-      const result = await proposals.checkItems(q, items);
-      for (const issue of result.issues) onItem(issue.index, issue);
-      warnings = result.warnings;
-    }
+    // The proposals core checks each item's shape and its registry facts, as for the form.
+    if (items.length > 0)
+      for (const issue of await proposals.checkItems(q, items)) onItem(issue.index, issue);
     const rows: PreviewRow[] = checked.rows.map((r) => {
       const index = itemOf.get(r);
       const first = index !== undefined && checked.entries[index]?.rows[0] === r;
@@ -156,7 +146,7 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
           ? [{ message: 'The file has a header but no rows.' }]
           : checked.fileErrors,
       rows,
-      warnings,
+      warnings: [],
       items,
     };
   }
@@ -198,7 +188,7 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
           status: 'draft',
           itemCount: items.length,
           rowCount: preview.rowCount,
-          warnings: preview.warnings,
+          warnings: created.warnings,
         };
       });
     },
