@@ -29,6 +29,10 @@ export const routes: Routes = [
       import('./features/curation/curation.routes').then((m) => m.CURATION_ROUTES),
   },
   {
+    path: 'sources',
+    loadChildren: () => import('./features/sources/sources.routes').then((m) => m.SOURCES_ROUTES),
+  },
+  {
     path: 'audit',
     canMatch: [roleGuard('editor', 'admin')],
     loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),

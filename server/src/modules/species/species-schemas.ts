@@ -100,6 +100,21 @@ export const RevisionView = z.object({
   createdAt: z.string(),
   /** Published releases that pin this revision. */
   releases: z.array(z.string()),
+  /** A derived value (computed from a measured reaction enthalpy and other species' values). */
+  derived: z.boolean().optional(),
+  /** Derived values only: true when an input was superseded or retired since (`staleInputs` says which). */
+  stale: z.boolean().optional(),
+  staleInputs: z
+    .array(
+      z.object({
+        inputRevisionId: z.number().int(),
+        /** The revision that replaced it; null when it was retired. */
+        supersededBy: z.number().int().nullable(),
+        species: z.string(),
+        phase: z.string(),
+      }),
+    )
+    .optional(),
 });
 export type RevisionView = z.infer<typeof RevisionView>;
 

@@ -3,6 +3,7 @@ import type { Database } from '../../db/client';
 import { AppError } from '../../lib/app-error';
 import { molarMass, parseFormula } from '../../thermo';
 import type { ReleasesService } from '../releases/releases-service';
+import { registryRepository, type StaleInputRow } from '../proposals/registry-repository';
 import { speciesRepository } from './species-repository';
 import type {
   ReleaseSpeciesPage,
@@ -20,6 +21,14 @@ export const unknownSpecies = (key: string) =>
   new AppError(404, 'unknown_species', `There is no species with key ${JSON.stringify(key)}`, {
     key,
   });
+
+/** Derived values say whether an input was superseded since (and by what). */
+function derivedFields(id: number, staleRows: StaleInputRow[]) {
+  const staleInputs = staleRows
+    .filter((s) => s.revisionId === id)
+    .map(({ revisionId: _r, ...s }) => s);
+  return { derived: true, stale: staleInputs.length > 0, staleInputs };
+}
 
 export function createSpeciesService(db: Database, releases: ReleasesService) {
   return {
@@ -89,6 +98,10 @@ export function createSpeciesService(db: Database, releases: ReleasesService) {
         else pinnedBy.set(p.revisionId, [p.version]);
       }
       const revisionById = new Map(revisionRows.map((r) => [r.revision.id, r.revision]));
+      const staleRows = await registryRepository.staleInputsOfRevisions(
+        db,
+        revisionRows.filter((r) => r.revision.derivation !== null).map((r) => r.revision.id),
+      );
 
       const revisions: RevisionView[] = revisionRows.map(({ revision: r, phase, modification }) => {
         const own = ranges.filter((x) => x.revisionId === r.id);
@@ -124,6 +137,7 @@ export function createSpeciesService(db: Database, releases: ReleasesService) {
           supersedesId: r.supersedesId,
           createdAt: r.createdAt.toISOString(),
           releases: pinnedBy.get(r.id) ?? [],
+          ...(r.derivation !== null ? derivedFields(r.id, staleRows) : {}),
         };
       });
 
