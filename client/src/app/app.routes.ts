@@ -33,6 +33,12 @@ export const routes: Routes = [
     loadChildren: () => import('./features/sources/sources.routes').then((m) => m.SOURCES_ROUTES),
   },
   {
+    path: 'releases/drafts',
+    canMatch: [roleGuard('editor', 'admin')],
+    loadChildren: () =>
+      import('./features/releases/drafts/drafts.routes').then((m) => m.RELEASE_DRAFT_ROUTES),
+  },
+  {
     path: 'audit',
     canMatch: [roleGuard('editor', 'admin')],
     loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),
