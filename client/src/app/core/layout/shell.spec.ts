@@ -76,10 +76,10 @@ describe('Shell', () => {
     backend.expectOne('/api/v1/me').flush(admin);
   });
 
-  it('offers an anonymous visitor Home, Browse and Calculate, and a full-page sign-in link', async () => {
+  it('offers an anonymous visitor Home, Browse, Calculate and Releases, and a full-page sign-in link', async () => {
     await signIn(null);
 
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases']);
     const signInLink = Array.from(element.querySelectorAll('a')).find((a) =>
       a.textContent?.includes('Sign in'),
     );
@@ -90,7 +90,7 @@ describe('Shell', () => {
   it('shows an admin the Admin link, their name and their role chip', async () => {
     await signIn(admin);
 
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Admin']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases', 'Admin']);
     expect(element.querySelector('nav a[href="/admin/users"]')).not.toBeNull();
     expect(element.querySelector('.user-name')?.textContent).toBe('Amara Okafor');
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('admin');
@@ -100,7 +100,7 @@ describe('Shell', () => {
   it('hides the Admin link from other roles', async () => {
     await signIn(editor);
 
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases']);
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('editor');
   });
 
@@ -143,7 +143,7 @@ describe('Shell', () => {
     expect(navigate).toHaveBeenCalledWith('/');
     expect(element.textContent).toContain('Sign in');
     expect(element.querySelector('.user-name')).toBeNull();
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate']);
+    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases']);
   });
 
   it('sends sign-in back to the current page with its query', async () => {
@@ -167,5 +167,15 @@ describe('Shell', () => {
     await fixture.whenStable();
     expect(element.textContent).not.toContain('Sign in');
     expect(element.textContent).toContain('Account: check again');
+  });
+
+  it.each([
+    ['reader', false],
+    ['curator', true],
+    ['editor', true],
+  ] as const)('shows the Curation link to a %s: %s', async (role, shown) => {
+    await signIn({ ...editor, role });
+    expect(navLabels().includes('Curation')).toBe(shown);
+    expect(element.querySelector('nav a[href="/curation"]') !== null).toBe(shown);
   });
 });

@@ -9,7 +9,7 @@ import {
   signal,
 } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
-import { FormArray, FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormArray, FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -90,6 +90,7 @@ export class ProposalForm {
     validators: [Validators.required, Validators.maxLength(10_000)],
   });
   protected readonly items = new FormArray<ItemForm>([itemForm()]);
+  protected readonly form = new FormGroup({ rationale: this.rationale, items: this.items });
 
   protected readonly existing = signal<ProposalDetail | null>(null);
   protected readonly loading = signal(false);

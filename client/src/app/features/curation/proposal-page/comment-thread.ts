@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
@@ -41,7 +41,7 @@ const DECISION_WORDS: Readonly<Record<NonNullable<CommentView['decision']>, stri
       </ol>
     }
     @if (canComment()) {
-      <form (ngSubmit)="send()" class="add" aria-label="Add a comment">
+      <form [formGroup]="form" (ngSubmit)="send()" class="add" aria-label="Add a comment">
         <mat-form-field class="field">
           <mat-label>Add a comment</mat-label>
           <textarea matInput [formControl]="body" rows="2"></textarea>
@@ -114,6 +114,7 @@ export class CommentThread {
     nonNullable: true,
     validators: [Validators.required, Validators.pattern(/\S/)],
   });
+  protected readonly form = new FormGroup({ body: this.body });
   protected readonly busy = signal(false);
   protected readonly problem = signal<string | null>(null);
 

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
@@ -68,7 +68,7 @@ export function refusalOf(error: unknown): Refusal {
     MatIcon,
   ],
   template: `
-    <form class="panel" (ngSubmit)="decide()" aria-labelledby="decision-title">
+    <form class="panel" [formGroup]="form" (ngSubmit)="decide()" aria-labelledby="decision-title">
       <h2 id="decision-title">Decision</h2>
       @if (ownProposal()) {
         <p class="note">You proposed this; another editor has to decide it.</p>
@@ -118,6 +118,7 @@ export class DecisionPanel {
     nonNullable: true,
     validators: [Validators.required, Validators.pattern(/\S/), Validators.maxLength(10_000)],
   });
+  protected readonly form = new FormGroup({ decision: this.decision, comment: this.comment });
   protected readonly busy = signal(false);
   protected readonly refusal = signal<Refusal | null>(null);
 

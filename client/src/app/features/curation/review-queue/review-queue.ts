@@ -147,7 +147,10 @@ export class ReviewQueue {
     const list = load.state === 'loaded' ? load.list : this.lastList();
     return (list?.proposals ?? []).map((p) => ({
       ...p,
-      kindText: [...new Set(p.kinds)].map((k) => KIND_WORDS[k]).join(', '),
+      about: [
+        [...new Set(p.kinds)].map((k) => KIND_WORDS[k]).join(', '),
+        ...(p.species.length > 0 ? [p.species.join(', ')] : []),
+      ].join(' · '),
     }));
   });
   protected readonly total = computed(() => {

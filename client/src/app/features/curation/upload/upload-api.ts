@@ -19,9 +19,7 @@ export class UploadApi {
 
   dryRun(file: File): Observable<UploadProgress> {
     return this.send(file, true).pipe(
-      map((p) =>
-        p.stage === 'created' ? ({ stage: 'processing' } as UploadProgress) : p,
-      ),
+      map((p) => (p.stage === 'created' ? ({ stage: 'processing' } as UploadProgress) : p)),
     );
   }
 

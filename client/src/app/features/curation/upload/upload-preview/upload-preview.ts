@@ -1,0 +1,89 @@
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  input,
+  linkedSignal,
+  signal,
+} from '@angular/core';
+import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { MatSlideToggle } from '@angular/material/slide-toggle';
+import {
+  MatCell,
+  MatCellDef,
+  MatColumnDef,
+  MatHeaderCell,
+  MatHeaderCellDef,
+  MatHeaderRow,
+  MatHeaderRowDef,
+  MatRow,
+  MatRowDef,
+  MatTable,
+} from '@angular/material/table';
+
+import type { PreviewRow, UploadPreview as Preview } from '@contracts/uploads/uploads-schemas';
+import { LAYOUT_WORDS, rowAction, rowSummary } from '../upload-words';
+
+/**
+ * The dry run's rows: what each becomes and, highlighted, what is wrong with it and in which
+ * column. Paged on the client (a file has at most 20,000 rows); rows with errors can be shown
+ * alone.
+ */
+@Component({
+  selector: 'thalpos-upload-preview',
+  imports: [
+    MatTable,
+    MatColumnDef,
+    MatHeaderCell,
+    MatHeaderCellDef,
+    MatCell,
+    MatCellDef,
+    MatHeaderRow,
+    MatHeaderRowDef,
+    MatRow,
+    MatRowDef,
+    MatPaginator,
+    MatSlideToggle,
+  ],
+  templateUrl: './upload-preview.html',
+  styleUrl: './upload-preview.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class UploadPreview {
+  readonly preview = input.required<Preview>();
+
+  protected readonly columns = ['line', 'type', 'row', 'action', 'problems'];
+  protected readonly layoutWords = LAYOUT_WORDS;
+  protected readonly summary = rowSummary;
+  protected readonly action = rowAction;
+
+  /** A long file with problems opens on its problem rows; every new file on its first page. */
+  protected readonly onlyErrors = linkedSignal(
+    () => this.preview().errorRowCount > 0 && this.preview().rowCount > 10,
+  );
+  protected readonly pageIndex = linkedSignal({ source: this.preview, computation: () => 0 });
+  protected readonly pageSize = signal(25);
+
+  protected readonly shown = computed(() => {
+    const rows = this.preview().rows;
+    return this.onlyErrors() ? rows.filter((r) => r.errors.length > 0) : rows;
+  });
+  protected readonly page = computed(() => {
+    const start = this.pageIndex() * this.pageSize();
+    return this.shown().slice(start, start + this.pageSize());
+  });
+
+  protected toggleErrors(only: boolean): void {
+    this.onlyErrors.set(only);
+    this.pageIndex.set(0);
+  }
+
+  protected turnPage(event: PageEvent): void {
+    this.pageSize.set(event.pageSize);
+    this.pageIndex.set(event.pageIndex);
+  }
+
+  protected problemText(problem: PreviewRow['errors'][number]): string {
+    return problem.column ? `${problem.column}: ${problem.message}` : problem.message;
+  }
+}
