@@ -7,10 +7,11 @@ import { createReleasesService } from '../../server/src/modules/releases/release
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
- * A second release made through the releases service from the seeded 2026.1: one ΔfH° changed
+ * A new release made through the releases service from the newest seeded one (`base`): one ΔfH° changed
  * (to a demo source whose citation needs escaping), one retired, one species-phase added and
  * one heat-capacity set replaced. All numbers are invented demo data.
  */
+const NEW = '2026.8';
 const DEMO_CITATION =
   'Kestrel Process Works demo data: "bench" <calorimetry> & co\'s notes\r\nsecond line';
 
@@ -21,11 +22,14 @@ describe('release diffs', () => {
     { id: number; key: string; phase: string; value?: string; u?: string }
   > = {};
   const created: Record<string, number> = {};
+  let base = '';
+  /** Accepted values the base release does not pin yet (the demo may keep one back). */
+  let pending = 0;
 
   const one = async (text: string, params: unknown[] = []) =>
     (await t.db.pool.query(text, params)).rows[0];
 
-  /** A pinned revision of 2026.1 of the given quantity that no derived value depends on. */
+  /** A pinned revision of the base release of the given quantity that no derived value depends on. */
   const pick = (quantity: string, offset: number) =>
     one(
       `select r.id, s.key, sp.phase::text as phase, trim_scale(r.value)::text as value,
@@ -33,17 +37,29 @@ describe('release diffs', () => {
        from release_entries e join releases rel on rel.id = e.release_id
        join revisions r on r.id = e.revision_id
        join species_phases sp on sp.id = e.species_phase_id join species s on s.id = sp.species_id
-       where rel.version = '2026.1' and e.quantity = $1 and r.status = 'accepted'
+       where rel.version = $3 and e.quantity = $1 and r.status = 'accepted'
          and (r.uncertainty is not null or $1 = 'heat_capacity')
          and not exists (select 1 from revision_inputs i where i.input_revision_id = r.id)
          and not exists (select 1 from revision_inputs i where i.revision_id = r.id)
        order by s.key collate "C", sp.phase offset $2 limit 1`,
-      [quantity, offset],
+      [quantity, offset, base],
     );
 
   beforeAll(async () => {
     t = await createTestApp();
     const editor = (await one(`select id from users where login = 'demo-editor'`)).id as number;
+    base = (
+      await one(`select version from releases where status = 'published'
+                 order by published_at desc, id desc limit 1`)
+    ).version;
+    pending = (
+      await one(
+        `select count(*)::int as n from revisions r where r.status = 'accepted' and not exists (
+           select 1 from release_entries e join releases rel on rel.id = e.release_id
+           where rel.version = $1 and e.revision_id = r.id)`,
+        [base],
+      )
+    ).n;
     picked.changed = await pick('formation_enthalpy', 0);
     picked.retired = await pick('formation_enthalpy', 1);
     picked.heat = await pick('heat_capacity', 0);
@@ -112,21 +128,22 @@ describe('release diffs', () => {
 
     const releases = createReleasesService(t.db.db);
     await t.db.db.transaction(async (tx) => {
-      await releases.createDraftIn(tx, { id: editor }, '2026.2', 'Demo second release');
-      await releases.publishIn(tx, { id: editor }, '2026.2');
+      await releases.createDraftIn(tx, { id: editor }, NEW, 'Demo second release');
+      await releases.publishIn(tx, { id: editor }, NEW);
     });
   });
   afterAll(() => t.close());
 
   it('lists exactly the added, removed and changed entries, with differences and sources', async () => {
-    const res = await request(t.app).get('/api/v1/releases/2026.1/diff/2026.2').expect(200);
+    const res = await request(t.app).get(`/api/v1/releases/${base}/diff/${NEW}`).expect(200);
     expect(res.headers['cache-control']).toBe(IMMUTABLE_CACHE);
     const diff = ReleaseDiff.parse(res.body);
     expect(diff).toMatchObject({
-      from: '2026.1',
-      to: '2026.2',
-      summary: { added: 1, removed: 1, changed: 2 },
+      from: base,
+      to: NEW,
     });
+    expect(diff.summary.added + diff.summary.changed).toBe(3 + pending);
+    expect(diff.summary.removed).toBe(1);
     const u = Number(picked.changed.u);
     const row = (key: string, quantity: string) =>
       diff.rows.find((r) => r.speciesKey === key && r.quantity === quantity);
@@ -192,32 +209,33 @@ describe('release diffs', () => {
       differenceInUncertainties: null,
       newSourceCitation: DEMO_CITATION,
     });
-    expect(diff.rows).toHaveLength(4);
+    expect(diff.rows).toHaveLength(4 + pending);
   });
 
   it('answers the reverse diff with added and removed swapped, and nothing between a release and itself', async () => {
     const back = ReleaseDiff.parse(
-      (await request(t.app).get('/api/v1/releases/2026.2/diff/2026.1').expect(200)).body,
+      (await request(t.app).get(`/api/v1/releases/${NEW}/diff/${base}`).expect(200)).body,
     );
-    expect(back.summary).toEqual({ added: 1, removed: 1, changed: 2 });
+    expect(back.summary.removed + back.summary.changed).toBe(3 + pending);
+    expect(back.summary.added).toBe(1);
     expect(back.rows.find((r) => r.speciesKey === 'kestrel-demo-oxide')?.change).toBe('removed');
-    const same = await request(t.app).get('/api/v1/releases/2026.1/diff/2026.1').expect(200);
+    const same = await request(t.app).get(`/api/v1/releases/${base}/diff/${base}`).expect(200);
     expect(same.body.rows).toEqual([]);
   });
 
   it('gives the same rows as CSV, by suffix or by ?format=csv, with a checksum ETag', async () => {
     const json = ReleaseDiff.parse(
-      (await request(t.app).get('/api/v1/releases/2026.1/diff/2026.2').expect(200)).body,
+      (await request(t.app).get(`/api/v1/releases/${base}/diff/${NEW}`).expect(200)).body,
     );
-    const csv = await request(t.app).get('/api/v1/releases/2026.1/diff/2026.2.csv').expect(200);
+    const csv = await request(t.app).get(`/api/v1/releases/${base}/diff/${NEW}.csv`).expect(200);
     expect(csv.headers['content-type']).toMatch(/^text\/csv/);
     expect(csv.headers.etag).toMatch(/^"[0-9a-f]{64}"$/);
     const byQuery = await request(t.app)
-      .get('/api/v1/releases/2026.1/diff/2026.2?format=csv')
+      .get(`/api/v1/releases/${base}/diff/${NEW}?format=csv`)
       .expect(200);
     expect(byQuery.text).toBe(csv.text);
     await request(t.app)
-      .get('/api/v1/releases/2026.1/diff/2026.2.csv')
+      .get(`/api/v1/releases/${base}/diff/${NEW}.csv`)
       .set('If-None-Match', csv.headers.etag!)
       .expect(304);
 
@@ -242,21 +260,21 @@ describe('release diffs', () => {
       `insert into releases (version, notes, created_by) values ('2026.9', 'draft', $1)`,
       [editor],
     );
-    for (const path of ['2099.1/diff/2026.1', '2026.1/diff/2099.1.csv', '2026.1/diff/2026.9']) {
+    for (const path of [`2099.1/diff/${base}`, `${base}/diff/2099.1.csv`, `${base}/diff/2026.9`]) {
       const res = await request(t.app).get(`/api/v1/releases/${path}`).expect(404);
       expect(res.body.error.code).toBe('unknown_release');
     }
   });
 
   it('diffs against latest with a short cache', async () => {
-    const res = await request(t.app).get('/api/v1/releases/2026.1/diff/latest').expect(200);
-    expect(res.body.to).toBe('2026.2');
+    const res = await request(t.app).get(`/api/v1/releases/${base}/diff/latest`).expect(200);
+    expect(res.body.to).toBe(NEW);
     expect(res.headers['cache-control']).toBe('public, max-age=60');
   });
 
   it('exports the second release with the demo citation escaped in XML and read back intact', async () => {
     const xml = await request(t.app)
-      .get('/api/v1/releases/2026.2/export.xml')
+      .get(`/api/v1/releases/${NEW}/export.xml`)
       .buffer(true)
       .parse((res, done) => {
         let text = '';
@@ -281,7 +299,7 @@ describe('release diffs', () => {
     expect(items.find((i) => i.speciesKey === 'kestrel-demo-oxide')?.source.citation).toBe(
       DEMO_CITATION,
     );
-    const json = (await request(t.app).get('/api/v1/releases/2026.2/export.json').expect(200)).body;
+    const json = (await request(t.app).get(`/api/v1/releases/${NEW}/export.json`).expect(200)).body;
     expect(json.formationEnthalpies).toHaveLength(items.length);
   });
 });

@@ -39,6 +39,11 @@ export const routes: Routes = [
       import('./features/releases/drafts/drafts.routes').then((m) => m.RELEASE_DRAFT_ROUTES),
   },
   {
+    path: 'releases',
+    loadChildren: () =>
+      import('./features/releases/releases.routes').then((m) => m.RELEASES_ROUTES),
+  },
+  {
     path: 'audit',
     canMatch: [roleGuard('editor', 'admin')],
     loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),

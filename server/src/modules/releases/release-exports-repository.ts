@@ -9,7 +9,7 @@ export type ExportSection = (typeof EXPORT_SECTIONS)[number];
 /**
  * One row of an export as the database hands it over: every number is exact decimal text
  * without trailing zeros (`trim_scale`), so the bytes never depend on how a value was typed in.
- * A heat-capacity set is one row per temperature range (`rangeIndex` from 1).
+ * A heat-capacity set is one row per temperature range (`rangeIndex`: its stored position, from 1).
  */
 export interface ExportRow {
   section: ExportSection;
@@ -54,7 +54,7 @@ export function exportQueryText(releaseId: number): string {
       r.standard_pressure::text as "standardPressure",
       trim_scale(r.temperature)::text as temperature, r.to_phase::text as "toPhase",
       r.to_modification as "toModification", r.heat_capacity_form::text as "heatCapacityForm",
-      hr.seq + 1 - min(hr.seq) over (partition by r.id) as "rangeIndex",
+      hr.seq + 1 as "rangeIndex",
       trim_scale(hr.t_min)::text as "tMin", trim_scale(hr.t_max)::text as "tMax",
       case when hr.revision_id is not null then array(
         select trim_scale(c)::text from unnest(hr.coefficients) with ordinality u(c, i) order by i
