@@ -55,6 +55,12 @@ export const routes: Routes = [
       import('./features/settings/settings.routes').then((m) => m.SETTINGS_ROUTES),
   },
   {
+    path: 'integrate',
+    canMatch: [roleGuard('reader', 'curator', 'editor', 'admin')],
+    loadChildren: () =>
+      import('./features/integrate/integrate.routes').then((m) => m.INTEGRATE_ROUTES),
+  },
+  {
     path: 'admin',
     canMatch: [roleGuard('admin')],
     loadChildren: () => import('./features/admin/admin.routes').then((m) => m.ADMIN_ROUTES),

@@ -13,8 +13,8 @@ import { LATEST, ReleaseContext } from '../../core/release-context';
   imports: [ReactiveFormsModule, MatFormField, MatLabel, MatHint, MatSelect, MatOption],
   template: `
     <mat-form-field>
-      <mat-label>Release</mat-label>
-      <mat-select [formControl]="control()" aria-label="Release">
+      <mat-label>{{ label() }}</mat-label>
+      <mat-select [formControl]="control()" [aria-label]="label()">
         <mat-option [value]="latest">Newest ({{ context.latest() }})</mat-option>
         @for (release of context.releases(); track release.version) {
           <mat-option [value]="release.version">{{ release.version }}</mat-option>
@@ -44,6 +44,8 @@ export class ReleasePicker {
 
   readonly control = input.required<FormControl<string>>();
   readonly hint = input('');
+  /** Visible label and accessible name, e.g. "From release" when a screen shows two pickers. */
+  readonly label = input('Release');
 
   protected readonly latest = LATEST;
 
