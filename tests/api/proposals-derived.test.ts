@@ -16,6 +16,8 @@ const COMBUSTION = 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)';
 const DELTA_C = -890.55;
 
 describe('proposals: derived values', () => {
+  // Many HTTP round trips per test: a busy machine makes them slower, never red.
+  jest.setTimeout(120_000);
   let t: TestApp;
   let curator: Curator, editor: Curator, editor2: Curator;
   let source: string;

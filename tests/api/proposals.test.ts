@@ -9,6 +9,8 @@ import { createTestApp, type TestApp } from '../support/test-app';
 import { as, row, sourceId, submitted, valueItem, type Curator } from '../support/proposals';
 
 describe('proposals: workflow and roles', () => {
+  // Many HTTP round trips per test: a busy machine makes them slower, never red.
+  jest.setTimeout(120_000);
   let t: TestApp;
   let reader: Curator, curator: Curator, editor: Curator, editor2: Curator, admin: Curator;
   let source: string;
