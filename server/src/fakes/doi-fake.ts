@@ -43,7 +43,7 @@ export const FAKE_DOI_RECORDS: Readonly<Record<string, Record<string, unknown>>>
   },
   '10.5555/kestrel.demo.2026.003': {
     type: 'book',
-    title: 'Process data handbook, second edition (demo data)',
+    title: 'Process data handbook (demo data)',
     editor: [{ family: 'Sørensen', given: 'Lena' }],
     issued: { 'date-parts': [[2026]] },
     publisher: 'Kestrel Process Works',
