@@ -137,7 +137,8 @@ describe('normaliseDoi', () => {
     ['http://dx.doi.org/10.5555/q', '10.5555/q'],
   ])('%s → %s', (input, doi) => expect(normaliseDoi(input)).toBe(doi));
 
-  it.each(['', '10.1/x', 'not a doi', '10.5555/', '10.5555/a b'])('refuses %j', (input) =>
-    expect(normaliseDoi(input)).toBeNull(),
+  it.each(['', '10.1/x', 'not a doi', '10.5555/', '10.5555/a b', '10.5555/../x', '10.5555/a/.'])(
+    'refuses %j',
+    (input) => expect(normaliseDoi(input)).toBeNull(),
   );
 });

@@ -25,7 +25,9 @@ export function normaliseDoi(text: string): string | null {
     .trim()
     .replace(/^(?:https?:\/\/(?:dx\.)?doi\.org\/|doi:\s*)/i, '')
     .toLowerCase();
-  return /^10\.[0-9]{4,9}\/\S+$/.test(bare) ? bare : null;
+  // A "." or ".." segment is no real DOI's and would walk the resolver's paths.
+  const walks = /(^|\/)\.{1,2}(\/|$)/.test(bare);
+  return /^10\.[0-9]{4,9}\/\S+$/.test(bare) && !walks ? bare : null;
 }
 
 /** One plain-text citation in the bundled CSL style. */
@@ -145,6 +147,10 @@ async function fetchCsl(doi: string, baseUrl: string): Promise<Csl> {
     throw new AppError(422, 'doi_not_found', `No work is registered under the DOI ${doi}`);
   }
   if (!res.ok) throw unreachable(`it answered ${res.status}`);
+  if (Number(res.headers.get('content-length') ?? 0) > DOI_MAX_BYTES) {
+    await res.body?.cancel();
+    throw unreachable('the answer was too large');
+  }
   const body = await res.text();
   if (body.length > DOI_MAX_BYTES) throw unreachable('the answer was too large');
   let csl: unknown;
