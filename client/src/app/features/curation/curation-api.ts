@@ -14,7 +14,6 @@ import type {
   ProposalStatus,
   TransitionAnswer,
 } from '@contracts/proposals/proposals-schemas';
-import type { DocumentList } from '@contracts/sources/sources-schemas';
 
 /** One page request of a proposal list (the review queue, or the caller's own). */
 export interface ProposalListRequest {
@@ -78,17 +77,7 @@ export class CurationApi {
     return this.http.post<CommentAnswer>(`${this.base}/${id}/comments`, { body });
   }
 
-  /** Documents attached to a source (editors, admins and the proposer may read them). */
-  documents(sourceId: number | string): Observable<DocumentList> {
-    return this.http.get<DocumentList>(`/api/v1/sources/${sourceId}/documents`);
-  }
-
   decide(id: number, decision: Decision, comment: string): Observable<TransitionAnswer> {
     return this.http.post<TransitionAnswer>(`${this.base}/${id}/decision`, { decision, comment });
   }
-}
-
-/** Where a document of a source is downloaded. */
-export function documentHref(sourceId: number | string, documentId: number | string): string {
-  return `/api/v1/sources/${sourceId}/documents/${documentId}`;
 }

@@ -13,6 +13,8 @@ import { map, startWith, switchMap } from 'rxjs';
 
 import type { ItemIssue, ItemWarning } from '@contracts/proposals/proposals-schemas';
 import { ChemText } from '../../../shared/chem-text';
+import { DocumentUpload } from '../../../shared/document-upload/document-upload';
+import { SourcePicker } from '../../../shared/source-picker/source-picker';
 import { NumberInput } from '../../../shared/number-input/number-input';
 import { phaseName } from '../../../shared/phase-name';
 import { UnitSelect } from '../../../shared/unit-select/unit-select';
@@ -52,6 +54,8 @@ import { SpeciesSearch } from './species-search';
     UnitSelect,
     EquationField,
     SpeciesSearch,
+    SourcePicker,
+    DocumentUpload,
   ],
   templateUrl: './item-editor.html',
   styleUrl: './item-editor.scss',

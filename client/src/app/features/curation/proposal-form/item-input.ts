@@ -17,11 +17,12 @@ export function toItemInput(v: ItemFormValue): ProposalItemInput {
   };
   const notes = optional(v.notes);
   const uncertainty = numberValue(v.uncertainty);
+  const sourceId = (v.sourceId ?? '').trim();
   const evidence = {
     uncertainty,
     uncertaintyBasis: uncertainty === null ? null : v.uncertaintyBasis,
     standardPressure: v.standardPressure,
-    sourceId: v.sourceId.trim(),
+    sourceId,
     notes,
   };
   switch (v.kind) {
@@ -45,11 +46,11 @@ export function toItemInput(v: ItemFormValue): ProposalItemInput {
         kind: 'add_phase',
         ...target,
         phase: v.phase as Phase,
-        sourceId: optional(v.sourceId),
+        sourceId: optional(sourceId),
         notes,
       };
     case 'retire_value':
-      return { kind: 'retire_value', ...target, quantity: v.quantity, sourceId: v.sourceId, notes };
+      return { kind: 'retire_value', ...target, quantity: v.quantity, sourceId, notes };
     case 'derive_value':
       return {
         kind: 'derive_value',
@@ -74,7 +75,7 @@ export function toItemInput(v: ItemFormValue): ProposalItemInput {
           ranges: typeof ranges === 'string' ? [] : ranges,
           method: optional(v.method),
           standardPressure: v.standardPressure,
-          sourceId: v.sourceId.trim(),
+          sourceId,
           notes,
           fromMemory: false,
         };

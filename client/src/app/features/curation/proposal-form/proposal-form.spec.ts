@@ -58,6 +58,10 @@ describe('ProposalForm', () => {
     for (const r of backend.match((req) => req.url === '/api/v1/search')) {
       r.flush({ release: '2026.1', query: '', formula: null, results: [] });
     }
+    for (const r of backend.match((req) => req.url.startsWith('/api/v1/sources/'))) {
+      if (r.cancelled) continue;
+      r.flush({ id: '12', citation: 'Demo source 12', doi: null, csl: {}, createdAt: '' });
+    }
     for (const r of backend.match('/api/v1/proposals/check')) {
       r.flush({ ok: true, issues: [], warnings: [] });
     }

@@ -14,7 +14,7 @@ import {
   kjFromJoulesText,
   kjUncertainty,
 } from '../../species/species-format';
-import { CurationApi, documentHref } from '../curation-api';
+import { SourcesApi } from '../../../shared/sources-api';
 import { KIND_WORDS } from '../proposal-status';
 
 const signed = new Intl.NumberFormat('en-US', {
@@ -40,7 +40,7 @@ const minus = (text: string) => text.replace('-', '−');
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ItemReview {
-  private readonly api = inject(CurationApi);
+  private readonly sources = inject(SourcesApi);
 
   readonly item = input.required<ProposalItemView>();
 
@@ -54,7 +54,7 @@ export class ItemReview {
       switchMap((sourceId) =>
         sourceId === null
           ? of<DocumentView[]>([])
-          : this.api.documents(sourceId).pipe(
+          : this.sources.documents(String(sourceId)).pipe(
               map((list) => list.documents),
               catchError(() => of<DocumentView[]>([])),
             ),
@@ -62,7 +62,9 @@ export class ItemReview {
     ),
     { initialValue: [] as DocumentView[] },
   );
-  protected readonly documentHref = documentHref;
+  protected documentHref(sourceId: number, documentId: string): string {
+    return this.sources.documentUrl(String(sourceId), documentId);
+  }
 
   /** The proposal's own value, as the curator typed it and as stored (kJ/mol). */
   protected readonly proposed = computed(() => {
