@@ -115,6 +115,19 @@ describe('Shell', () => {
     expect(navLabels()).not.toContain('Audit log');
   });
 
+  it.each(['curator', 'editor', 'admin'] as const)(
+    'shows the Sources link to a %s',
+    async (role) => {
+      await signIn({ ...editor, role });
+      expect(element.querySelector('nav a[href="/sources"]')?.textContent?.trim()).toBe('Sources');
+    },
+  );
+
+  it('hides the Sources link from a reader', async () => {
+    await signIn({ ...editor, role: 'reader' });
+    expect(navLabels()).not.toContain('Sources');
+  });
+
   it('offers Settings in the account menu of a signed-in user', async () => {
     await signIn({ ...editor, role: 'reader' });
     const loader = TestbedHarnessEnvironment.loader(fixture);
