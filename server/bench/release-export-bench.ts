@@ -9,6 +9,7 @@
 import { execSync, spawn } from 'node:child_process';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import express from 'express';
 import { Client } from 'pg';
@@ -92,7 +93,12 @@ async function main(): Promise<void> {
     await runMigrations(db);
     let start = process.hrtime.bigint();
     await generateRegistry(db);
-    print(`\nsynthetic registry built in ${(ms(start) / 1000).toFixed(1)} s\n`);
+    const load = os
+      .loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ');
+    print(`\nsynthetic registry built in ${(ms(start) / 1000).toFixed(1)} s`);
+    print(`${os.cpus().length} CPUs, load average ${load} (figures are of this machine, now)\n`);
 
     const releases = createReleasesModule({ db });
     const app = express();

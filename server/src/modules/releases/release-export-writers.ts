@@ -218,6 +218,8 @@ function jsonWriter(header: ExportHeader): ExportWriter {
 // XML 1.0 allows tab, newline, carriage return and these ranges; anything else (other control
 // characters, lone surrogates) cannot be written at all, escaped or not.
 const NOT_XML_CHAR = /[^\t\n\r\u0020-\uD7FF\uE000-\uFFFD\u{10000}-\u{10FFFF}]/gu;
+// eslint-disable-next-line no-control-regex -- control characters are exactly what it looks for
+const NEEDS_ESCAPE = /[&<>"'\r\u0000-\u0008\u000B\u000C\u000E-\u001F\uD800-\uDFFF\uFFFE\uFFFF]/;
 const XML_ESCAPES: Record<string, string> = {
   '&': '&amp;',
   '<': '&lt;',
@@ -229,6 +231,8 @@ const XML_ESCAPES: Record<string, string> = {
 
 /** Escapes text for element content or a quoted attribute; unwritable characters become U+FFFD. */
 export function escapeXml(text: string): string {
+  // Most values (numbers, keys, formulas) need nothing: one quick test spares two replaces.
+  if (!NEEDS_ESCAPE.test(text)) return text;
   return text.replace(NOT_XML_CHAR, '\uFFFD').replace(/[&<>"'\r]/g, (c) => XML_ESCAPES[c]!);
 }
 
