@@ -7,6 +7,7 @@ import { RouterTestingHarness } from '@angular/router/testing';
 
 import type { ReleaseList, ReleaseManifestWithExports } from '@contracts/releases/releases-schemas';
 import { errorInterceptor } from '../../../core/error-interceptor';
+import { Session } from '../../../core/session';
 import { ReleasesPage } from './releases-page';
 
 // Harness-driven Material components: slow on a busy machine, which must not fail a test.
@@ -90,6 +91,23 @@ describe('ReleasesPage', () => {
       backend.expectOne(`/api/v1/releases/${v}`).flush(manifest(v));
     await harness.fixture.whenStable();
   }
+
+  it('offers the release drafts to editors only', async () => {
+    await open();
+    expect(element().querySelector('a[href="/releases/drafts"]')).toBeNull();
+    const known = TestBed.inject(Session).refresh();
+    backend.expectOne('/api/v1/me').flush({
+      id: 3,
+      login: 'demo-editor',
+      name: 'Helga Brandt',
+      role: 'editor',
+      avatarUrl: null,
+    });
+    await known;
+    await harness.fixture.whenStable();
+    const link = element().querySelector('a[href="/releases/drafts"]');
+    expect(link?.textContent).toContain('Release drafts and New release');
+  });
 
   it('lists releases newest first with who published them, notes and counts', async () => {
     await open();

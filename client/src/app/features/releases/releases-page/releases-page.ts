@@ -9,6 +9,7 @@ import { catchError, map, of, startWith } from 'rxjs';
 
 import type { ReleaseSummary } from '@contracts/releases/releases-schemas';
 import { readableMessage } from '../../../core/api-error';
+import { Session } from '../../../core/session';
 import { ReleasesApi } from '../releases-api';
 import { ReleaseCard } from './release-card';
 
@@ -27,6 +28,13 @@ type List =
 })
 export class ReleasesPage {
   private readonly api = inject(ReleasesApi);
+  private readonly session = inject(Session);
+
+  /** Editors and admins compose releases; the link leads to their drafts. */
+  protected readonly canCompose = computed(() => {
+    const role = this.session.user()?.role;
+    return role === 'editor' || role === 'admin';
+  });
 
   protected readonly list = toSignal(
     this.api.list().pipe(
