@@ -29,6 +29,13 @@ export const routes: Routes = [
       import('./features/curation/curation.routes').then((m) => m.CURATION_ROUTES),
   },
   {
+    path: 'proposals/upload',
+    title: 'Bulk upload · Thalpos',
+    canMatch: [roleGuard('curator', 'editor', 'admin')],
+    loadComponent: () =>
+      import('./features/curation/upload/upload-page/upload-page').then((m) => m.UploadPage),
+  },
+  {
     path: 'sources',
     loadChildren: () => import('./features/sources/sources.routes').then((m) => m.SOURCES_ROUTES),
   },

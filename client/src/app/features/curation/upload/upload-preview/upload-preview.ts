@@ -53,7 +53,6 @@ export class UploadPreview {
   readonly preview = input.required<Preview>();
 
   protected readonly columns = ['line', 'type', 'row', 'action', 'problems'];
-  protected readonly layoutWords = LAYOUT_WORDS;
   protected readonly summary = rowSummary;
   protected readonly action = rowAction;
 
@@ -81,6 +80,18 @@ export class UploadPreview {
   protected turnPage(event: PageEvent): void {
     this.pageSize.set(event.pageSize);
     this.pageIndex.set(event.pageIndex);
+  }
+
+  protected typeWord(row: PreviewRow): string {
+    return LAYOUT_WORDS[row.layout];
+  }
+
+  protected errorsOf(row: PreviewRow): PreviewRow['errors'] {
+    return row.errors;
+  }
+
+  protected fileErrorText(e: Preview['fileErrors'][number]): string {
+    return e.line ? `Line ${e.line}: ${e.message}` : e.message;
   }
 
   protected problemText(problem: PreviewRow['errors'][number]): string {
