@@ -53,6 +53,7 @@ export class Shell {
     if (!this.session.hasRole('curator', 'editor', 'admin')) return items;
     items.push(
       { path: '/curation/propose', label: 'Propose' },
+      { path: '/proposals/upload', label: 'Bulk upload' },
       { path: '/curation/proposals', label: 'My proposals' },
     );
     if (this.session.hasRole('editor', 'admin')) {
@@ -73,7 +74,9 @@ export class Shell {
   protected readonly signInUrl = computed(() => signInHref(this.url()));
   /** The calculation screens get a second row of links, one per screen. */
   protected readonly inCalculate = computed(() => this.url().startsWith('/calculate'));
-  protected readonly inCuration = computed(() => this.url().startsWith('/curation'));
+  protected readonly inCuration = computed(
+    () => this.url().startsWith('/curation') || this.url().startsWith('/proposals/upload'),
+  );
 
   protected async signOut(): Promise<void> {
     this.signingOut.set(true);
