@@ -3,6 +3,7 @@ import { recordAudits } from '../modules/audit/audit-repository';
 import { seedUploadDemoSource } from '../modules/uploads/upload-demo-source';
 import { usersRepository } from '../modules/users/users-repository';
 import type { Database } from './client';
+import { seedDemoProposals } from './seed-demo-proposals';
 
 /**
  * Loads the demo data once: rows that already exist (matched by GitHub id) are left alone, so
@@ -33,5 +34,6 @@ export async function seedDemoData(db: Database): Promise<void> {
       })),
     );
     await seedUploadDemoSource(tx);
+    await seedDemoProposals(tx);
   });
 }

@@ -263,7 +263,11 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
         return transition(row);
       }),
 
-    comment: (actor: UserRow, id: number, body: string): Promise<CommentAnswer> =>
+    comment: (
+      actor: Pick<UserRow, 'id' | 'login' | 'name'>,
+      id: number,
+      body: string,
+    ): Promise<CommentAnswer> =>
       db.transaction(async (tx) => {
         const p = await lockVisible(tx, id, actor);
         if (p.authorId !== actor.id)
