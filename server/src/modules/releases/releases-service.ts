@@ -224,8 +224,12 @@ export function createReleasesService(
     createDraft: (actor: Actor, version: string, notes = '') =>
       db.transaction((tx) => createDraftIn(tx, actor, version, notes)),
 
-    publish: (actor: Actor, version: string, report?: (phase: PublishStep) => void) =>
-      db.transaction((tx) => publishIn(tx, actor, version, report)),
+    async publish(actor: Actor, version: string, report?: (phase: PublishStep) => void) {
+      const row = await db.transaction((tx) => publishIn(tx, actor, version, report));
+      // Again after the commit: a request in between may have cached the previous newest.
+      latest = null;
+      return row;
+    },
   };
 }
 
