@@ -101,6 +101,9 @@ describe('ApiTokens', () => {
     await fixture.whenStable();
 
     expect(await rootLoader.getAllHarnesses(MatDialogHarness)).toHaveLength(0);
+    // The emptied name field is ready for the next token, not marked as an error.
+    expect(await (await loader.getHarness(MatInputHarness)).getValue()).toBe('');
+    expect(text()).not.toContain('Give the token a name');
     expect(text()).toContain('Nightly export');
     expect(text()).not.toContain(secret);
   });

@@ -1,7 +1,20 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormControl,
+  FormGroup,
+  FormGroupDirective,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
@@ -45,11 +58,13 @@ export class ApiTokens {
   private readonly snackBar = inject(MatSnackBar);
   private readonly destroyRef = inject(DestroyRef);
 
+  // Not `required`: an emptied field after a token was made is no error; only an empty submit is.
   protected readonly name = new FormControl('', {
     nonNullable: true,
-    validators: [Validators.required, Validators.maxLength(100)],
+    validators: [Validators.maxLength(100)],
   });
   protected readonly form = new FormGroup({ name: this.name });
+  private readonly formDirective = viewChild.required(FormGroupDirective);
   protected readonly tokens = signal<readonly TokenView[]>([]);
   protected readonly loading = signal(true);
   protected readonly loadError = signal<string | null>(null);
@@ -79,7 +94,9 @@ export class ApiTokens {
 
   protected create(): void {
     const name = this.name.value.trim();
-    if (!name || this.creating()) {
+    if (this.creating()) return;
+    if (!name) {
+      this.name.setErrors({ required: true });
       this.name.markAsTouched();
       return;
     }
@@ -90,7 +107,8 @@ export class ApiTokens {
       .subscribe({
         next: ({ token, apiToken }) => {
           this.creating.set(false);
-          this.name.reset();
+          // Also clears "submitted", so the emptied field does not show as an error.
+          this.formDirective().resetForm();
           this.tokens.update((list) => [...list, apiToken]);
           this.dialog.open<TokenCreatedDialog, TokenCreatedData>(TokenCreatedDialog, {
             data: { name: apiToken.name, token },

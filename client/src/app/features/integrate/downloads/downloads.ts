@@ -50,6 +50,9 @@ const FORMATS = [
     :host {
       display: block;
     }
+    thalpos-release-picker {
+      margin-bottom: 8px;
+    }
     .files {
       list-style: none;
       margin: 0 0 8px;
