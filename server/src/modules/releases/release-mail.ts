@@ -3,6 +3,7 @@ import type { Database, Tx } from '../../db/client';
 import { enqueueMail, type OutgoingMail } from '../mail/outbox';
 import { notificationsRepository } from '../notifications/notifications-repository';
 import { watchlistImpactsForRelease, type WatcherReport } from '../watchlists/watchlist-impacts';
+import { watchlistsRepository } from '../watchlists/watchlists-repository';
 import { draftRepository } from './draft-repository';
 import { createReleasesService, type OnPublished } from './releases-service';
 
@@ -44,6 +45,8 @@ export function releaseImpactMail(r: WatcherReport, publicUrl: string): Omit<Out
 export function watcherMailsOnPublish(publicUrl: string): OnPublished {
   return async (tx: Tx, release: ReleaseRow) => {
     if (!release.baseReleaseId) return;
+    // Computing two releases' snapshots is the costly part: skip it when nobody watches.
+    if ((await watchlistsRepository.withOwners(tx)).length === 0) return;
     const base = await draftRepository.findById(tx, release.baseReleaseId);
     if (!base) return;
     const inTx = tx as unknown as Database;
