@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import request from 'supertest';
 import { acceptFormationValueIn, retireRevisionIn } from '../../server/src/db/accepted-revisions';
 import {
@@ -403,6 +404,24 @@ describe('release composer', () => {
       ]);
       expect([a.status, b.status].sort()).toEqual([200, 409]);
       expect((a.status === 409 ? a : b).body.error.code).toBe('stale_draft');
+    });
+    it('makes the release that published last the newest, whenever its transaction began', async () => {
+      await create('2030.8').expect(201);
+      await create('2030.9').expect(201);
+      await accept('methane', 'g', '-74877');
+      const actor = { id: await userId('demo-editor') };
+      const releases = createReleasesService(t.db.db);
+      await t.db.db.transaction(async (tx) => {
+        await tx.execute(sql`select 1`); // the transaction (and its now()) starts here
+        await releases.publish(actor, '2030.8'); // another connection publishes meanwhile
+        const newest = await one(`select id from releases where version = '2030.8'`);
+        await tx.execute(
+          sql`update releases set base_release_id = ${newest.id} where version = '2030.9'`,
+        );
+        await accept('methane', 'g', '-74878');
+        await releases.publishIn(tx, actor, '2030.9');
+      });
+      expect(await latest()).toBe('2030.9');
     });
   });
 

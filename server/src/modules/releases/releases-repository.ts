@@ -138,10 +138,14 @@ export const releasesRepository = {
     return row;
   },
 
+  /**
+   * The time is read when the row is written, not when the transaction began (`now()`): publishes
+   * serialise on a lock, so this orders releases by when they really became the newest.
+   */
   async markPublished(tx: Tx, releaseId: number, userId: number): Promise<ReleaseRow> {
     const [row] = await tx
       .update(releases)
-      .set({ status: 'published', publishedBy: userId, publishedAt: sql`now()` })
+      .set({ status: 'published', publishedBy: userId, publishedAt: sql`clock_timestamp()` })
       .where(eq(releases.id, releaseId))
       .returning();
     return row!;
