@@ -19,10 +19,8 @@ import { proposalsRepository } from './proposals-repository';
 import type {
   CheckAnswer,
   CommentAnswer,
-  CreateAnswer,
   CreateProposalBody,
   Decision,
-  ItemIssue,
   ProposalDetail,
   ProposalList,
   ProposalListQuery,
@@ -34,64 +32,15 @@ import { createRederive } from './rederive';
 /**
  * Curation: proposals from draft to decision. Every transition is one transaction that locks
  * the proposal row, re-checks the actor's role under lock, writes its audit row and hands its
- * event to the sink — all or nothing.
- *
- * For other modules (bulk upload):
- * - `checkItems(dbOrTx, items)` validates raw items (zod shape, then the registry: species,
- *   phases, sources, formulas, identifiers, targets, derivations) without saving and returns
- *   `ItemIssue[]` (`{index, path, code, message}`, path like `items[3].casRn`); empty = valid.
- * - `createDraftIn(tx, actor, {rationale, items})` creates a draft proposal with its audit row
- *   inside the caller's transaction; throws 422 `invalid_items` (details.issues) when any item
- *   fails, 403 when the actor is no longer a curator. Returns `{id, status: 'draft', warnings}`.
+ * event to the sink — all or nothing. `checkItems` and `createDraftIn` (for bulk upload) live in
+ * proposal-drafts.ts and are re-exported here.
  */
+import { createDraftIn, invalidItems } from './proposal-drafts';
+
+export { checkItems, createDraftIn, type ItemCheckOptions } from './proposal-drafts';
 
 type Actor = Pick<UserRow, 'id'>;
 type Queryable = Database | Tx;
-
-export interface ItemCheckOptions {
-  /** Published snapshots (the releases service's cache); loaded directly when absent. */
-  published?: (version: string) => Promise<ReleaseSnapshot>;
-}
-
-export async function checkItems(
-  db: Queryable,
-  items: readonly unknown[],
-  options: ItemCheckOptions = {},
-): Promise<ItemIssue[]> {
-  return (await checkAndResolve(db, items, snapshotSource(db, options.published))).issues;
-}
-
-const invalidItems = (issues: ItemIssue[]) =>
-  new AppError(
-    422,
-    'invalid_items',
-    `${issues.length} problem${issues.length === 1 ? '' : 's'} in the items: ${issues
-      .slice(0, 3)
-      .map((i) => `${i.path}: ${i.message}`)
-      .join('; ')}`,
-    { issues },
-  );
-
-export async function createDraftIn(
-  tx: Tx,
-  actor: Actor,
-  input: CreateProposalBody,
-  options: ItemCheckOptions = {},
-): Promise<CreateAnswer> {
-  await usersRepository.assertActorRoleLocked(tx, actor.id, 'curator');
-  const checked = await checkAndResolve(tx, input.items, snapshotSource(tx, options.published));
-  if (checked.issues.length) throw invalidItems(checked.issues);
-  const row = await proposalsRepository.insertProposal(tx, actor.id, input.rationale);
-  await proposalsRepository.insertItems(tx, row.id, checked.items);
-  await recordAudit(tx, {
-    actorId: actor.id,
-    action: 'proposal.created',
-    entityType: 'proposal',
-    entityId: row.id,
-    after: { status: 'draft', rationale: input.rationale, items: checked.items.length },
-  });
-  return { id: row.id, status: 'draft', warnings: checked.warnings };
-}
 
 export interface ProposalsServiceDeps {
   db: Database;
