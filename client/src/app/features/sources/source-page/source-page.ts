@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButton } from '@angular/material/button';
@@ -31,7 +31,7 @@ function loading<T>(source: Observable<T>): Observable<Load<T>> {
 /** One source: its citation, DOI, BibTeX and RIS downloads, and documents for those allowed. */
 @Component({
   selector: 'thalpos-source-page',
-  imports: [RouterLink, DatePipe, DecimalPipe, MatButton, MatIcon, MatProgressBar, DocumentUpload],
+  imports: [RouterLink, DatePipe, MatButton, MatIcon, MatProgressBar, DocumentUpload],
   templateUrl: './source-page.html',
   styleUrl: './source-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -91,6 +91,12 @@ export class SourcePage {
   protected bibtexUrl = (id: string) => this.api.bibtexUrl(id);
   protected risUrl = (id: string) => this.api.risUrl(id);
   protected documentUrl = (doc: DocumentView) => this.api.documentUrl(doc.sourceId, doc.id);
+
+  /** "840 kB", "3.2 MB": a size as people read it. */
+  protected sizeText(bytes: number): string {
+    if (bytes < 1024 * 1024) return `${Math.max(1, Math.round(bytes / 1024))} kB`;
+    return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
+  }
 
   protected attached(): void {
     this.reloadDocuments.update((n) => n + 1);
