@@ -15,8 +15,8 @@ const DEMO_LABEL =
 
 /**
  * Invented ΔfH° values (J/mol) the demo's process-data team "re-evaluated". Used only when the
- * demo proposals have not accepted enough values of their own. The last one is kept back from
- * the demo release, so one accepted value always awaits the next release.
+ * demo proposals have not accepted enough values of their own; without any from the proposals,
+ * the last one is kept back, so one accepted value always awaits the next release.
  */
 const DEMO_VALUES: { key: string; phase: 'g' | 'l'; value: string; uncertainty: string }[] = [
   { key: 'methane', phase: 'g', value: '-74600', uncertainty: '300' },
@@ -35,9 +35,10 @@ export interface DemoReleaseResult {
 
 /**
  * Publishes the demo's second release from the values accepted since the newest release (the
- * demo proposals' approvals, or invented demo values when there are too few), as the demo editor,
- * keeping the newest accepted value back for the next release. Runs once: when the release
- * exists (or the demo accounts do not), nothing is written.
+ * demo proposals' approvals, and invented demo values when there are too few), as the demo
+ * editor, keeping the newest value the proposals accepted (or else the newest value) back for the
+ * next release. Runs once: when the release exists (or the demo accounts do not), nothing is
+ * written.
  */
 export async function ensureDemoRelease(
   db: Database,
@@ -59,13 +60,20 @@ export async function ensureDemoRelease(
         'The numbers and their demo sources are invented for demonstration; not for engineering use.',
     );
     let changes = await draftRepository.changes(tx, draft);
+    // What the demo proposals accepted: the newest of it waits for the next release, as their
+    // story says; the demo's own values fill the release when the proposals accepted too few.
+    const fromProposals = new Set(
+      changes.filter((c) => c.change !== 'retired').map((c) => c.changeId),
+    );
     if (changes.length < 3) {
       await acceptDemoValues(tx, curator?.id ?? editor.id);
       changes = await draftRepository.changes(tx, draft);
     }
     const values = changes.filter((c) => c.change !== 'retired');
     if (values.length < 2) throw new Error('the demo release found too few values to publish');
-    const keptBack = Math.max(...values.map((c) => c.changeId));
+    const keepBackFrom =
+      fromProposals.size > 0 ? [...fromProposals] : values.map((c) => c.changeId);
+    const keptBack = Math.max(...keepBackFrom);
     await draftRepository.exclude(tx, draft.id, [keptBack], editor.id);
     const stale = await draftRepository.staleInputs(tx, draft);
     const staleIds = [...new Set(stale.map((s) => s.derivedId))];
