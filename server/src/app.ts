@@ -18,6 +18,7 @@ import { createAuditModule } from './modules/audit/audit-router';
 import { createAuthModule } from './modules/auth/auth-module';
 import { REAL_GITHUB, type GithubEndpoints } from './modules/auth/auth-strategy';
 import { createCalculateModule } from './modules/calculate/calculate-router';
+import { createDocsModule } from './modules/docs/docs-router';
 import { createHealthModule } from './modules/health/health-router';
 import { createSearchModule } from './modules/search/search-router';
 import { createSourcesModule } from './modules/sources/sources-router';
@@ -98,10 +99,11 @@ export function createApp(deps: AppDeps): Express {
   });
   const uploads = createUploadsModule({ db: database.db, releases: releases.service });
   const watchlists = createWatchlistsModule({ db: database.db, reactions: reactions.service });
+  const docs = createDocsModule();
 
   // Before any session: health answers while the database is down, and static files and the
   // SPA page never carry (or renew) a session cookie, so shared caches may keep them.
-  app.use('/api', health.router);
+  app.use('/api', health.router, docs.page);
   serveClient(app, config.clientDist);
 
   app.use(auth.identify);
@@ -123,6 +125,7 @@ export function createApp(deps: AppDeps): Express {
     reactions.router,
     species.router,
     search.router,
+    docs.api,
     uploads.router,
     proposals.router,
     tokens.router,

@@ -16,6 +16,8 @@ export interface ValidInput<S extends RequestSchemas> {
 }
 
 export type Validator<S extends RequestSchemas> = RequestHandler & {
+  /** The schemas themselves: the API reference reads a route's request from them. */
+  schemas: S;
   /** The typed input this validator stored for the current request. */
   input(res: Response): ValidInput<S>;
 };
@@ -43,6 +45,7 @@ export function validate<S extends RequestSchemas>(schemas: S): Validator<S> {
     next();
   };
   return Object.assign(handler, {
+    schemas,
     input: (res: Response) => res.locals['input'] as ValidInput<S>,
   });
 }
