@@ -1,5 +1,6 @@
 import { createHmac } from 'node:crypto';
 import request from 'supertest';
+import { manualClock } from '../../server/src/adapters/clock';
 import { TOKEN_PATTERN } from '../../server/src/modules/tokens/token-format';
 import {
   CreatedTokenAnswer,
@@ -221,5 +222,37 @@ describe('API rate limits per token', () => {
       .get('/api/v1/releases')
       .set('Authorization', `Bearer ${second}`)
       .expect(200);
+  });
+});
+
+describe('the last-use stamp of a token', () => {
+  const clock = manualClock(new Date('2026-03-01T08:00:00Z'));
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp({}, { adapters: { clock } });
+  });
+  afterAll(() => t.close());
+
+  it('is written at most once a minute', async () => {
+    const agent = request.agent(t.app);
+    const xsrf = await signIn(agent, 'demo-reader');
+    const { token, apiToken } = CreatedTokenAnswer.parse(
+      (await agent.post('/api/v1/me/tokens').set('X-XSRF-TOKEN', xsrf).send({ name: 'stamp' }))
+        .body,
+    );
+    const lastUsed = async () =>
+      (await t.db.pool.query(`select last_used_at from api_tokens where id = $1`, [apiToken.id]))
+        .rows[0].last_used_at as Date | null;
+    const use = () =>
+      request(t.app).get('/api/v1/me').set('Authorization', `Bearer ${token}`).expect(200);
+
+    await use();
+    expect((await lastUsed())?.toISOString()).toBe('2026-03-01T08:00:00.000Z');
+    clock.advance(59_000);
+    await use();
+    expect((await lastUsed())?.toISOString()).toBe('2026-03-01T08:00:00.000Z');
+    clock.advance(2_000);
+    await use();
+    expect((await lastUsed())?.toISOString()).toBe('2026-03-01T08:01:01.000Z');
   });
 });
