@@ -53,13 +53,15 @@ export function formationEquation(s: ImpactSpecies): Equation | null {
       `${fractionText(coefficient)} ${ref.formula}(${phaseText(ref.phase, ref.modification)})`,
     );
   }
-  const equation = parseEquation(
-    `${reactants.join(' + ')} -> ${s.formula}(${phaseText(s.phase, s.modification)})`,
-  );
-  // An element in its reference state is formed from itself: no reaction to show.
-  return equation.reactants.length === 1 && equation.reactants[0]!.id === equation.products[0]!.id
-    ? null
-    : equation;
+  try {
+    return parseEquation(
+      `${reactants.join(' + ')} -> ${s.formula}(${phaseText(s.phase, s.modification)})`,
+    );
+  } catch (err) {
+    // An element in its reference state is formed from itself: no net reaction to show.
+    if (isThermoError(err) && err.code === 'invalid_input') return null;
+    throw err;
+  }
 }
 
 /** ΔfH° of a term as the snapshot holds it (by formula and phase; the first species that has it). */
