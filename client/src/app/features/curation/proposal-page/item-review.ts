@@ -107,6 +107,12 @@ export class ItemReview {
   protected spread(r: RevisionRef): string | null {
     return kjUncertainty(r.uncertainty);
   }
+  protected sizeText(bytes: number): string {
+    if (bytes < 1024) return `${bytes} bytes`;
+    if (bytes < 1024 * 1024) return `${Math.round(bytes / 1024)} KB`;
+    return `${(bytes / 1024 / 1024).toFixed(1)} MB`;
+  }
+
   protected kj(value: number | null): string {
     return value === null ? '—' : minus(signed.format(value).replace('+', ''));
   }
