@@ -239,6 +239,36 @@ describe('proposals: item kinds and validation', () => {
     expect(res.body.error.message).toContain('was retired');
   });
 
+  it('shows each value beside the one it replaces: difference, combined uncertainty, flag above 2, history and source', async () => {
+    // Current ammonia(g): −45.94 ± 0.35 kJ/mol (CODATA Key Values); the proposed numbers are invented.
+    const near = valueItem(source, { species: 'ammonia', value: -46.6, uncertainty: 0.3 });
+    const far = valueItem(source, { species: 'ammonia', value: -47.5, uncertainty: 0.3 });
+    const [a, b] = await Promise.all(
+      [near, far].map(async (item) => {
+        const res = await curator
+          .post('/api/v1/proposals', { rationale: 'compare', items: [item] })
+          .expect(201);
+        return ProposalDetail.parse(
+          (await curator.get(`/api/v1/proposals/${res.body.id}`).expect(200)).body,
+        ).items[0]!;
+      }),
+    );
+    const combined = Math.hypot(0.3, 0.35);
+    expect(a!.comparison!.differenceKJPerMol).toBeCloseTo(-0.66, 9);
+    expect(a!.comparison!.combinedUncertaintyKJPerMol).toBeCloseTo(combined, 9);
+    expect(a!.comparison!.differenceInUncertainties).toBeCloseTo(0.66 / combined, 9);
+    expect(a!.comparison!.flagged).toBe(false);
+    expect(b!.comparison!.flagged).toBe(true);
+    expect(a!.target).toMatchObject({ status: 'accepted', value: -45940, releases: ['2026.1'] });
+    expect(a!.target!.source.citation).toMatch(/CODATA/);
+    expect(a!.source?.id).toBe(Number(source));
+    expect(a!.reactions.find((r) => r.label === 'formation')).toMatchObject({
+      equation: '3/2 H2(g) + 1/2 N2(g) -> H3N(g)',
+      before: -45.94,
+      after: -46.6,
+    });
+  });
+
   it('lets curators use the check route; readers are refused', async () => {
     await reader.post('/api/v1/proposals/check', { items: [valueItem(source)] }).expect(403);
     expect((await check([valueItem(source)])).ok).toBe(true);
