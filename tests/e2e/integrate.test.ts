@@ -1,3 +1,4 @@
+import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import {
   openBrowser,
   PHONE,
@@ -6,10 +7,30 @@ import {
   type BrowserSession,
 } from '../support/browser';
 
-describe('an integrator manages an API token in the browser', () => {
+describe('an integrator on the Integrate screen', () => {
   let s: BrowserSession;
   beforeAll(async () => {
     s = await openBrowser();
+    // A second release in which liquid water's ΔfH° moved by 0.5 kJ/mol (test data), published
+    // before the browser first reads the release list (which it may cache for a minute).
+    const editor = (await s.t.db.pool.query(`select id from users where login = 'demo-editor'`))
+      .rows[0] as { id: number };
+    const releases = createReleasesService(s.t.db.db);
+    await s.t.db.db.transaction(async (tx) => {
+      await tx.execute(`
+        with old as (
+          update revisions r set status = 'superseded', status_changed_at = now()
+          from species_phases sp join species s on s.id = sp.species_id
+          where sp.id = r.species_phase_id and s.key = 'water' and sp.phase = 'l'
+            and r.quantity = 'formation_enthalpy' and r.status = 'accepted'
+          returning r.*)
+        insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
+          uncertainty_basis, method, standard_pressure, source_id, status, supersedes_id)
+        select species_phase_id, kind, quantity, value + 500, uncertainty,
+          uncertainty_basis, method, standard_pressure, source_id, 'accepted', id from old`);
+      await releases.createDraftIn(tx, editor, '2026.2', 'Water revised (test data)');
+      await releases.publishIn(tx, editor, '2026.2');
+    });
   });
   afterAll(() => s.close());
 
@@ -77,6 +98,37 @@ describe('an integrator manages an API token in the browser', () => {
     });
     expect(after.status).toBe(401);
     expect(((await after.json()) as { error: { code: string } }).error.code).toBe('invalid_token');
+    expect(s.problems).toEqual([]);
+  });
+
+  it('keeps a watchlist and runs its impact report between two releases', async () => {
+    const { page, baseUrl } = s;
+    await page.setViewportSize({ width: 1366, height: 900 });
+    await page.goto(`${baseUrl}/integrate`);
+    await page.getByRole('button', { name: 'New watchlist' }).click();
+    await page.getByRole('textbox', { name: 'Watchlist name' }).fill('Boiler feed');
+    await page.getByRole('textbox', { name: 'Reaction 1' }).fill('H2(g) + 1/2 O2(g) -> H2O(l)');
+    await page.getByRole('textbox', { name: 'Label (optional)' }).fill('hydrogen combustion');
+    await page.getByRole('button', { name: 'Add reaction' }).click();
+    await page.getByRole('textbox', { name: 'Reaction 2' }).fill('C(graphite) + O2(g) -> CO2(g)');
+    await page.getByRole('button', { name: 'Save watchlist' }).click();
+    await page.getByText('Watchlist “Boiler feed” saved').waitFor();
+
+    await page.getByRole('combobox', { name: 'From release' }).getByText('2026.1').waitFor();
+    await page.getByRole('combobox', { name: 'To release' }).getByText('2026.2').waitFor();
+    await page.getByRole('button', { name: 'Run impact report' }).click();
+    const table = page.getByRole('table', { name: 'Impact report' });
+    await table.waitFor();
+    const flagged = table.locator('tr.exceeds');
+    await flagged.getByText('hydrogen combustion').waitFor();
+    expect(await flagged.count()).toBe(1);
+    await expect(flagged.textContent()).resolves.toContain('0.5');
+    await screenshot(page, 'integrate-impact');
+
+    await page.setViewportSize(PHONE);
+    await table.waitFor();
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await screenshot(page, 'integrate-impact-phone');
     expect(s.problems).toEqual([]);
   });
 });
