@@ -10,3 +10,4 @@ export * from './tokens';
 export * from './watchlists';
 export * from './proposals';
 export * from './source-documents';
+export * from './release-exports';
