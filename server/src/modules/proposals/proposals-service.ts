@@ -340,16 +340,18 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
       const items = await proposalsRepository.itemsOf(db, id);
       const open =
         p.status === 'draft' || p.status === 'changes_requested' || p.status === 'submitted';
+      // One snapshot source: the accepted values are indexed once per request.
+      const snaps = snapshots(db);
       const warnings = open
         ? (
             await checkAndResolve(
               db,
               items.map((i) => i.input),
-              snapshots(db),
+              snaps,
             )
           ).warnings
         : [];
-      return buildDetail(db, p, toSummary(rows[0]!), actor, snapshots(db), warnings);
+      return buildDetail(db, p, toSummary(rows[0]!), actor, snaps, warnings);
     },
   };
   return {
