@@ -113,7 +113,25 @@ describe('immutability of published releases (raw SQL)', () => {
     expect(delRanges?.message).toMatch(/pinned by a published release/);
   });
 
-  it.each(['releases', 'release_entries', 'revisions', 'heat_capacity_ranges'])(
+  it('refuses to change, delete or add the stored exports of a published release', async () => {
+    const upd = await attempt(
+      `update release_exports set content = 'x'::bytea, bytes = 1 where release_id = $1`,
+      [pinned.releaseId],
+    );
+    expect(upd?.message).toMatch(/exports of a published release cannot be changed/);
+    const del = await attempt('delete from release_exports where release_id = $1', [
+      pinned.releaseId,
+    ]);
+    expect(del?.message).toMatch(/exports of a published release cannot be changed/);
+    const draft = await attempt(
+      `with d as (insert into releases (version) values ('2099.1') returning id)
+       insert into release_exports (release_id, format, sha256, bytes, content)
+       select id, 'csv', repeat('0', 64), 1, 'x'::bytea from d`,
+    );
+    expect(draft?.message).toMatch(/only for a published release/);
+  });
+
+  it.each(['releases', 'release_entries', 'revisions', 'heat_capacity_ranges', 'release_exports'])(
     'refuses TRUNCATE of %s',
     async (table) => {
       // The least-privilege role may hold no TRUNCATE at all; a role that does meets the trigger.

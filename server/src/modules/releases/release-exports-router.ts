@@ -31,7 +31,7 @@ class ClientGone extends Error {}
 
 /** Writes to the response, waiting whenever the client reads slower than the database. */
 function responseSink(res: Response) {
-  return (chunk: string) => {
+  return (chunk: Buffer) => {
     if (res.destroyed) throw new ClientGone();
     if (res.write(chunk)) return;
     return new Promise<void>((resolve, reject) => {

@@ -1,80 +1,55 @@
-import { createHash } from 'node:crypto';
 import type { Database } from '../../db/client';
-import {
-  createExportWriter,
-  EXPORT_FORMATS,
-  type ExportFormat,
-  type ExportHeader,
-} from './release-export-writers';
+import type { ExportFormat } from './release-export-writers';
+import { EXPORT_SLICE, releaseExportStore, type ExportDigest } from './release-export-store';
 import { releaseExportsRepository } from './release-exports-repository';
 import { releasesRepository, type ReleaseListRow } from './releases-repository';
 import type { ReleaseDiff } from './releases-schemas';
 import type { ReleasesService } from './releases-service';
 
-export interface ExportDigest {
-  sha256: string;
-  bytes: number;
-}
+export type { ExportDigest } from './release-export-store';
 
-/** Receives export text in order; may wait (backpressure) before the next part is produced. */
-export type ExportSink = (chunk: string) => Promise<void> | void;
+/** Receives export bytes in order; may wait (backpressure) before the next part is read. */
+export type ExportSink = (chunk: Buffer) => Promise<void> | void;
 
-const header = (r: ReleaseListRow): ExportHeader => ({
-  version: r.version,
-  publishedAt: r.publishedAt!.toISOString(),
-  notes: r.notes,
-});
-
-/** Whole-release exports (streamed from a database cursor) and diffs between two releases. */
+/**
+ * Whole-release exports, as stored when the release was published (release-export-store.ts),
+ * and diffs between two releases.
+ */
 export function createReleaseExportsService(db: Database, releases: ReleasesService) {
-  // A published release's export never changes: each digest is computed once per process.
-  const digests = new Map<string, Promise<ExportDigest>>();
+  // Stored checksums never change: each release's are read once per process.
+  const digests = new Map<number, Promise<Record<ExportFormat, ExportDigest>>>();
 
-  /** Writes the whole export of a published release to `sink`, batch by batch. */
-  async function write(release: ReleaseListRow, format: ExportFormat, sink: ExportSink) {
-    const writer = createExportWriter(format, header(release));
-    await sink(writer.begin());
-    // One snapshot of the data for the whole cursor; nothing here writes.
-    await db.transaction(
-      (tx) =>
-        releaseExportsRepository.eachBatch(tx, release.id, async (rows) => {
-          const text = writer.rows(rows);
-          if (text) await sink(text);
-        }),
-      { isolationLevel: 'repeatable read', accessMode: 'read only' },
-    );
-    await sink(writer.end());
-  }
-
-  function digestOf(release: ReleaseListRow, format: ExportFormat): Promise<ExportDigest> {
-    const key = `${release.id}:${format}`;
-    let p = digests.get(key);
+  /**
+   * The stored checksums of a release's exports. A release published before exports were stored
+   * has them rendered and stored by the first request that asks, in any process (see README).
+   */
+  function digestsOf(release: ReleaseListRow): Promise<Record<ExportFormat, ExportDigest>> {
+    let p = digests.get(release.id);
     if (!p) {
-      p = (async () => {
-        const hash = createHash('sha256');
-        let bytes = 0;
-        await write(release, format, (chunk) => {
-          hash.update(chunk, 'utf8');
-          bytes += Buffer.byteLength(chunk, 'utf8');
-        });
-        return { sha256: hash.digest('hex'), bytes };
-      })();
-      digests.set(key, p);
-      // A failed pass (database down) is not kept: the next request tries again.
-      p.catch(() => digests.delete(key));
+      p = (async () =>
+        (await releaseExportStore.digests(db, release.id)) ??
+        db.transaction((tx) => releaseExportStore.fillIn(tx, release)))();
+      digests.set(release.id, p);
+      // A failed read (database down) is not kept: the next request tries again.
+      p.catch(() => digests.delete(release.id));
     }
     return p;
   }
 
+  /** Streams the stored export of a published release to `sink`, slice by slice. */
+  async function write(release: ReleaseListRow, format: ExportFormat, sink: ExportSink) {
+    const { bytes } = (await digestsOf(release))[format];
+    for (let from = 0; from < bytes; from += EXPORT_SLICE) {
+      await sink(await releaseExportStore.slice(db, release.id, format, from));
+    }
+  }
+
   return {
     write,
-    digestOf,
-
+    digestOf: async (release: ReleaseListRow, format: ExportFormat) =>
+      (await digestsOf(release))[format],
     /** The digests of all three formats, for the manifest. */
-    async digests(release: ReleaseListRow): Promise<Record<ExportFormat, ExportDigest>> {
-      const [csv, json, xml] = await Promise.all(EXPORT_FORMATS.map((f) => digestOf(release, f)));
-      return { csv: csv!, json: json!, xml: xml! };
-    },
+    digests: digestsOf,
 
     /** Entries that differ between two published releases (`from` → `to`); 404 for either unknown. */
     async diff(from: string, to: string): Promise<ReleaseDiff> {

@@ -4,6 +4,7 @@ import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit-repository';
 import { usersRepository } from '../users/users-repository';
 import { draftRepository } from './draft-repository';
+import { renderExportsIn } from './release-export-store';
 import { buildSnapshot, type ReleaseSnapshot } from './release-snapshot';
 import { releasesRepository, type ReleaseCounts, type ReleaseListRow } from './releases-repository';
 import { loadSnapshotInput } from './snapshot-input';
@@ -123,10 +124,11 @@ export function createReleasesService(
   /**
    * Publishes a draft inside the caller's transaction: the base release's entries carried over,
    * the included changes applied (retirements removed), exactly one revision per species-phase
-   * and quantity; then the release is frozen by the database's triggers. Publishes serialise on
-   * one advisory lock, so of two drafts on the same base only the first can publish, and of two
-   * publishes of one draft only the first finds it still a draft. The actor's role is re-read
-   * under a row lock: a role revoked a moment ago cannot publish.
+   * and quantity; then the release is frozen by the database's triggers and its export files are
+   * rendered and stored. Publishes serialise on one advisory lock, so of two drafts on the same
+   * base only the first can publish, and of two publishes of one draft only the first finds it
+   * still a draft. The actor's role is re-read under a row lock: a role revoked a moment ago
+   * cannot publish.
    */
   async function publishIn(
     tx: Tx,
@@ -174,6 +176,9 @@ export function createReleasesService(
     }
     report('freezing');
     const row = await releasesRepository.markPublished(tx, release.id, user.id);
+    // Its export files are rendered now and stored frozen: later edits of a species name or a
+    // source's citation never reach them.
+    const exportFiles = await renderExportsIn(tx, row);
     await recordAudit(tx, {
       actorId: user.id,
       action: 'release.published',
@@ -187,6 +192,7 @@ export function createReleasesService(
         entries: pinned.entries,
         changes: pinned.changes,
         acknowledgedStale: [...new Set(stale.map((s) => s.derivedId))],
+        exports: exportFiles,
       },
     });
     report('notifying');
