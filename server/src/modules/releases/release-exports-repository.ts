@@ -127,6 +127,14 @@ export const releaseExportsRepository = {
   },
 
   /**
+   * For a diff of two large releases: its final sort of 20,000 wide rows (citations) needs about
+   * 7 MB and would spill to disk under the default 4 MB. Transaction-local.
+   */
+  async sortInMemory(tx: Tx): Promise<void> {
+    await tx.execute(sql`set local work_mem = '32MB'`);
+  },
+
+  /**
    * What changed from release `fromId` to `toId`, in one query: the two releases' entries
    * joined on species-phase and quantity, kept where the pinned revision differs. Differences
    * are exact (numeric); the combined uncertainty is the root sum of squares of both stated

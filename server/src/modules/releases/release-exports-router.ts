@@ -107,14 +107,14 @@ export function releaseExportsRouter(
       sendReleaseAnswer(req, res, diff, moving);
       return;
     }
-    const csv = diffCsv(diff);
+    const csv = Buffer.from(diffCsv(diff), 'utf8');
     res.setHeader('Cache-Control', moving === LATEST ? LATEST_CACHE : IMMUTABLE_CACHE);
     res.setHeader(
       'Content-Disposition',
       `attachment; filename="thalpos-diff-${diff.from}-${diff.to}.csv"`,
     );
     res.setHeader('ETag', `"${createHash('sha256').update(csv).digest('hex')}"`);
-    res.type('text/csv; charset=utf-8');
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     if (req.fresh) {
       res.status(304).end();
       return;

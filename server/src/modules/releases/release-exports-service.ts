@@ -58,6 +58,7 @@ export function createReleaseExportsService(db: Database, releases: ReleasesServ
         async (tx) => {
           // 20,000 entries probe 200,000 revisions by key faster than hashing them all.
           await releasesRepository.preferKeyProbes(tx);
+          await releaseExportsRepository.sortInMemory(tx);
           return releaseExportsRepository.diff(tx, a.id, b.id);
         },
         { accessMode: 'read only' },
