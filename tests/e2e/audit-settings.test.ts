@@ -1,0 +1,86 @@
+import {
+  openBrowser,
+  PHONE,
+  screenshot,
+  sidewaysOverflow,
+  type BrowserSession,
+} from '../support/browser';
+
+describe('settings and the audit log in the browser', () => {
+  let s: BrowserSession;
+  beforeAll(async () => {
+    s = await openBrowser();
+  });
+  afterAll(() => s.close());
+
+  it('an editor turns e-mail off in Settings, then reads the audit of curated data', async () => {
+    const { page, baseUrl } = s;
+    await page.goto(baseUrl);
+    await page
+      .getByRole('link', { name: /sign in/i })
+      .first()
+      .click();
+    await page.waitForURL(/\/login\/oauth\/authorize/);
+    await page
+      .getByRole('link', { name: /demo-editor\b/ })
+      .first()
+      .click();
+    await page.waitForURL(`${baseUrl}/`);
+    await page.getByText('Helga Brandt').waitFor();
+
+    // Settings, from the account menu.
+    await page.getByRole('button', { name: 'Account menu' }).click();
+    await page.getByRole('menuitem', { name: /Settings/ }).click();
+    await page.waitForURL(/\/settings$/);
+    const toggle = page.getByRole('switch', { name: 'E-mail me about proposals' });
+    await toggle.waitFor();
+    expect(await toggle.getAttribute('aria-checked')).toBe('true');
+    await page.getByText('Messages go to helga.brandt@kestrel.example').waitFor();
+    await toggle.click();
+    await page.getByText('E-mail notifications are off').waitFor();
+    const stored = await s.t.db.pool.query(
+      `select email_notifications from users where login = 'demo-editor'`,
+    );
+    expect(stored.rows[0].email_notifications).toBe(false);
+    await page.reload();
+    await page.getByRole('switch', { name: 'E-mail me about proposals' }).waitFor();
+    expect(
+      await page
+        .getByRole('switch', { name: 'E-mail me about proposals' })
+        .getAttribute('aria-checked'),
+    ).toBe('false');
+    await screenshot(page, 'settings');
+
+    // The audit log: curated data only for an editor; filter to releases, open a row.
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Audit log' })
+      .click();
+    await page.waitForURL(/\/audit$/);
+    await page.getByText('Accounts and sign-ins are visible to admins only').waitFor();
+    const table = page.getByRole('table', { name: 'Audit log' });
+    await table.getByRole('row').nth(1).waitFor();
+    expect(await table.getByText('user.settings_changed').count()).toBe(0);
+
+    await page.getByRole('combobox', { name: 'Record type' }).click();
+    await page.getByRole('option', { name: 'release', exact: true }).click();
+    await page.getByRole('button', { name: /Apply filters/ }).click();
+    await table.getByText('release.published').first().waitFor();
+    const actions = await table.locator('td.mat-column-action').allTextContents();
+    expect(actions.length).toBeGreaterThan(0);
+    expect(actions.every((a) => a.trim().startsWith('release.'))).toBe(true);
+
+    await table
+      .getByRole('button', { name: /^Before and after of entry/ })
+      .first()
+      .click();
+    await table.getByRole('heading', { name: 'After' }).waitFor();
+    await screenshot(page, 'audit-log');
+
+    await page.setViewportSize(PHONE);
+    await table.waitFor();
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    await screenshot(page, 'audit-log-phone');
+    expect(s.problems).toEqual([]);
+  });
+});
