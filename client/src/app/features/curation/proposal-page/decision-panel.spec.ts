@@ -102,9 +102,7 @@ describe('DecisionPanel', () => {
       fixture,
     );
     expect(alert.textContent).toMatch(/You cannot decide your own proposal\./);
-    expect(alert.textContent).toMatch(
-      /You proposed this yourself\. Another editor has to review it\./,
-    );
+    expect(alert.textContent).toMatch(/You proposed this yourself\./);
     expect(fixture.componentInstance.events).toEqual([]);
   });
 

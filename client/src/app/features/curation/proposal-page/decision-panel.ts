@@ -31,7 +31,7 @@ export function refusalOf(error: unknown): Refusal {
     if (error.status === 403 && error.code === 'own_proposal') {
       return {
         title: 'You cannot decide your own proposal.',
-        message: `${message} Another editor has to review it.`,
+        message,
         reload: false,
       };
     }
