@@ -35,6 +35,8 @@ export const routes: Routes = [
     loadComponent: () =>
       import('./features/curation/upload/upload-page/upload-page').then((m) => m.UploadPage),
   },
+  // E-mail links name a proposal by its plain address; the page lives under Curation.
+  { path: 'proposals/:id', redirectTo: 'curation/proposals/:id' },
   {
     path: 'sources',
     loadChildren: () => import('./features/sources/sources.routes').then((m) => m.SOURCES_ROUTES),
@@ -44,6 +46,12 @@ export const routes: Routes = [
     canMatch: [roleGuard('editor', 'admin')],
     loadChildren: () =>
       import('./features/releases/drafts/drafts.routes').then((m) => m.RELEASE_DRAFT_ROUTES),
+  },
+  {
+    path: 'integrate',
+    canMatch: [roleGuard('reader', 'curator', 'editor', 'admin')],
+    loadChildren: () =>
+      import('./features/integrate/integrate.routes').then((m) => m.INTEGRATE_ROUTES),
   },
   {
     path: 'releases',
@@ -60,12 +68,6 @@ export const routes: Routes = [
     canMatch: [roleGuard('reader', 'curator', 'editor', 'admin')],
     loadChildren: () =>
       import('./features/settings/settings.routes').then((m) => m.SETTINGS_ROUTES),
-  },
-  {
-    path: 'integrate',
-    canMatch: [roleGuard('reader', 'curator', 'editor', 'admin')],
-    loadChildren: () =>
-      import('./features/integrate/integrate.routes').then((m) => m.INTEGRATE_ROUTES),
   },
   {
     path: 'admin',
