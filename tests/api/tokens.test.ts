@@ -6,6 +6,7 @@ import {
   CreatedTokenAnswer,
   TokenListAnswer,
 } from '../../server/src/modules/tokens/tokens-schemas';
+import { sourceId, submitted, valueItem, as as asCurator } from '../support/proposals';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 describe('API tokens', () => {
@@ -140,6 +141,33 @@ describe('API tokens', () => {
     expect(res.body.error.code).toBe('session_required');
     const [after] = await sql(`select role from users where id = $1`, [reader.id]);
     expect(after.role).toBe('reader');
+  });
+
+  it("lets a curator's script propose with a token, but not an editor's token decide", async () => {
+    const source = await sourceId(t);
+    const { token } = await newToken('demo-curator', 'nightly proposals');
+    // No session cookie and no CSRF header: the token alone authenticates the write.
+    const created = await request(t.app)
+      .post('/api/v1/proposals')
+      .set(bearer(token))
+      .send({ rationale: 'From the lab script', items: [valueItem(source)] })
+      .expect(201);
+    const [p] = await sql(
+      `select p.status, u.login from proposals p join users u on u.id = p.author_id where p.id = $1`,
+      [created.body.id],
+    );
+    expect(p).toEqual({ status: 'draft', login: 'demo-curator' });
+
+    const id = await submitted(await asCurator(t, 'demo-curator'), [valueItem(source)]);
+    const { token: editorToken } = await newToken('demo-editor', 'review bot');
+    const decision = await request(t.app)
+      .post(`/api/v1/proposals/${id}/decision`)
+      .set(bearer(editorToken))
+      .send({ decision: 'approve', comment: 'looks fine' })
+      .expect(403);
+    expect(decision.body.error.code).toBe('session_required');
+    const [after] = await sql(`select status from proposals where id = $1`, [id]);
+    expect(after.status).toBe('submitted');
   });
 
   it('keeps CSRF protection for cookie sessions', async () => {

@@ -10,18 +10,19 @@ export interface RoleGuardOptions {
 }
 
 /**
- * The one role guard: the signed-in user must hold `minimum` or a higher role. Privileged
- * actions (curator and above) need a browser session: an API token stands for its user on the
- * read API and their own watchlists, never for curation, publishing or administration.
+ * The one role guard: the signed-in user must hold `minimum` or a higher role. An API token
+ * stands for its user up to curator work (reading, proposing, sources, uploads), so curators'
+ * scripts can propose; reviewing, publishing and administration (editor and above) need a
+ * browser session, where a person is present.
  */
 export function requireRole(minimum: Role, options: RoleGuardOptions = {}): RequestHandler {
   return async (req, res, next) => {
     if (!req.user) throw unauthenticated();
-    if (minimum !== 'reader' && viaBearerToken(res)) {
+    if (hasRole(minimum, 'editor') && viaBearerToken(res)) {
       throw new AppError(
         403,
         'session_required',
-        `This needs the ${minimum} role in a signed-in browser session; API tokens only read`,
+        `This needs the ${minimum} role in a signed-in browser session; API tokens read and propose only`,
       );
     }
     if (!hasRole(req.user.role, minimum)) {
