@@ -7,6 +7,7 @@ import {
   ProposalList,
   RederiveAnswer,
   TransitionAnswer,
+  WatchlistImpactAnswer,
 } from '../proposals/proposals-schemas';
 import {
   DraftAnswer,
@@ -84,6 +85,13 @@ export const MEMBER_ROUTE_DOCS: Record<string, RouteDoc> = {
     summary: 'A proposal for review: each item beside the value it would replace, and the thread',
     access: 'signed-in',
     answers: { 200: ProposalDetail },
+  },
+  'GET /api/v1/proposals/:id/watchlist-impact': {
+    tag: 'Curation',
+    summary:
+      "What approving the proposal would do to your watchlists: ΔrH from the accepted values and with the proposal's ΔfH° values, the change and whether it exceeds the combined uncertainty",
+    access: 'signed-in',
+    answers: { 200: WatchlistImpactAnswer },
   },
   'PUT /api/v1/proposals/:id': {
     tag: 'Curation',

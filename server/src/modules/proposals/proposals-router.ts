@@ -19,6 +19,7 @@ import {
   type ProposalList,
   type RederiveAnswer,
   type TransitionAnswer,
+  type WatchlistImpactAnswer,
 } from './proposals-schemas';
 import { createProposalsService, type ProposalsService } from './proposals-service';
 
@@ -49,6 +50,11 @@ export function proposalsRouter(service: ProposalsService): Router {
   router.get('/proposals/:id', requireSignIn, one, async (req, res) => {
     const detail = await service.detail(req.user!, one.input(res).params.id);
     res.json(detail satisfies ProposalDetail);
+  });
+
+  router.get('/proposals/:id/watchlist-impact', requireSignIn, one, async (req, res) => {
+    const answer = await service.watchlistImpact(req.user!, one.input(res).params.id);
+    res.json(answer satisfies WatchlistImpactAnswer);
   });
 
   const revise = validate({ params: IdParams, body: ReviseProposalBody });

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { REVISION_KINDS, REVISION_STATUSES, STANDARD_PRESSURES } from '../../../../schema';
 import { intText } from '../../middleware/validate';
+import { ImpactAnswer } from '../watchlists/watchlists-schemas';
 import { ITEM_KINDS, Phase, ProposalItemInput, UncertaintyBasis } from './proposal-item-schemas';
 
 /**
@@ -289,3 +290,26 @@ export const RederiveBody = z
   .strict();
 export const RederiveAnswer = CreateAnswer;
 export type RederiveAnswer = CreateAnswer;
+
+// ---- GET /api/v1/proposals/:id/watchlist-impact ----
+
+/**
+ * The caller's watchlists with the proposal's ΔfH° items applied: `from` is the accepted values
+ * (`accepted`), `to` the same with the proposal overlaid (`proposal-<id>`). Every reaction is
+ * listed; those the proposal moves count in `affected`.
+ */
+export const WatchlistImpactAnswer = z.object({
+  proposalId: z.number().int(),
+  status: ProposalStatus,
+  watchlists: z.array(
+    z.object({
+      id: z.number().int(),
+      name: z.string(),
+      /** Reactions whose ΔrH changes, or that only one side can compute. */
+      affected: z.number().int(),
+      report: ImpactAnswer,
+    }),
+  ),
+  caution: z.string(),
+});
+export type WatchlistImpactAnswer = z.infer<typeof WatchlistImpactAnswer>;

@@ -2,8 +2,8 @@ import type { ProposalRow, UserRow } from '../../../../schema';
 import { pgErrorCode, type Database, type Tx } from '../../db/client';
 import { AppError, forbidden, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit-repository';
+import { createReactionsService } from '../reactions/reactions-service';
 import type { ReleaseSnapshot } from '../releases/release-snapshot';
-import { hasRole } from '../users/roles';
 import { usersRepository } from '../users/users-repository';
 import { snapshotSource, type SnapshotSource } from './derivation';
 import { checkAndResolve } from './item-check';
@@ -15,6 +15,7 @@ import {
   type ProposalEvent,
   type ProposalEventSink,
 } from './proposal-events';
+import { findVisible, watchlistImpact } from './proposal-watchlist-impact';
 import { proposalsRepository } from './proposals-repository';
 import type {
   CheckAnswer,
@@ -59,6 +60,7 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
   const sink = onEvent ?? ignoreProposalEvents;
   const published = (v: string) => releases.getSnapshot(v);
   const snapshots = (q: Queryable): SnapshotSource => snapshotSource(q, published);
+  const reactions = createReactionsService(published);
 
   /** Locks the proposal; drafts are their author's alone (others get 404). */
   async function lockVisible(tx: Tx, id: number, actor: Actor): Promise<ProposalRow> {
@@ -328,9 +330,7 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
     },
 
     async detail(actor: UserRow, id: number): Promise<ProposalDetail> {
-      const p = await proposalsRepository.find(db, id);
-      if (!p || (p.status === 'draft' && p.authorId !== actor.id)) throw notFound(`Proposal ${id}`);
-      if (p.authorId !== actor.id && !hasRole(actor.role, 'curator')) throw forbidden();
+      const p = await findVisible(db, actor, id);
       const { rows } = await proposalsRepository.list(
         db,
         actor.id,
@@ -359,6 +359,9 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
     rederive: createRederive(db, (tx, actor, input) =>
       createDraftIn(tx, actor, input, { published }),
     ),
+    /** The caller's watchlists before and with the proposal applied. */
+    watchlistImpact: (actor: UserRow, id: number) =>
+      watchlistImpact(db, actor, id, snapshots(db), reactions),
   };
 }
 
