@@ -13,6 +13,7 @@ import type {
   ProposalList,
   ProposalStatus,
   TransitionAnswer,
+  WatchlistImpactAnswer,
 } from '@contracts/proposals/proposals-schemas';
 
 /** One page request of a proposal list (the review queue, or the caller's own). */
@@ -49,6 +50,11 @@ export class CurationApi {
 
   proposal(id: number): Observable<ProposalDetail> {
     return this.http.get<ProposalDetail>(`${this.base}/${id}`);
+  }
+
+  /** The caller's watchlists before and with the proposal applied. */
+  watchlistImpact(id: number): Observable<WatchlistImpactAnswer> {
+    return this.http.get<WatchlistImpactAnswer>(`${this.base}/${id}/watchlist-impact`);
   }
 
   /** Live validation of items (engine formula checks, duplicates); nothing is saved. */

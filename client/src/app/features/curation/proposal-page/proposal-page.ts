@@ -27,6 +27,7 @@ import { StatusChip } from '../status-chip';
 import { CommentThread } from './comment-thread';
 import { DecisionPanel, type Refusal } from './decision-panel';
 import { ItemReview } from './item-review';
+import { WatchlistImpactPanel } from './watchlist-impact-panel';
 
 /** One proposal: its items compared with the record, the thread, and what the reader may do. */
 @Component({
@@ -40,6 +41,7 @@ import { ItemReview } from './item-review';
     ItemReview,
     CommentThread,
     DecisionPanel,
+    WatchlistImpactPanel,
   ],
   templateUrl: './proposal-page.html',
   styleUrls: ['../curation-page.scss', './proposal-page.scss'],
