@@ -90,7 +90,17 @@ describe('Shell', () => {
   it('shows an admin the Admin link, their name and their role chip', async () => {
     await signIn(admin);
 
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases', 'Admin']);
+    expect(navLabels()).toEqual([
+      'Home',
+      'Browse',
+      'Calculate',
+      'Releases',
+      'Curation',
+      'Sources',
+      'Integrate',
+      'Audit log',
+      'Admin',
+    ]);
     expect(element.querySelector('nav a[href="/admin/users"]')).not.toBeNull();
     expect(element.querySelector('.user-name')?.textContent).toBe('Amara Okafor');
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('admin');
@@ -100,7 +110,16 @@ describe('Shell', () => {
   it('hides the Admin link from other roles', async () => {
     await signIn(editor);
 
-    expect(navLabels()).toEqual(['Home', 'Browse', 'Calculate', 'Releases']);
+    expect(navLabels()).toEqual([
+      'Home',
+      'Browse',
+      'Calculate',
+      'Releases',
+      'Curation',
+      'Sources',
+      'Integrate',
+      'Audit log',
+    ]);
     expect(element.querySelector('.role-chip')?.textContent?.trim()).toBe('editor');
   });
 
