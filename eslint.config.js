@@ -45,12 +45,24 @@ const thermoLayerRules = THERMO_LAYERS.flatMap((layer, i) => {
 });
 
 module.exports = tseslint.config(
-  { ignores: ['dist/', '.angular/', 'node_modules/', 'coverage/', 'artifacts/', 'schema/migrations/'] },
+  {
+    ignores: [
+      'dist/',
+      '.angular/',
+      'node_modules/',
+      'coverage/',
+      'artifacts/',
+      'schema/migrations/',
+    ],
+  },
   {
     files: ['**/*.ts'],
     extends: [eslint.configs.recommended, ...tseslint.configs.recommended],
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/no-non-null-assertion': 'off',
       'no-console': 'error',
     },
@@ -63,8 +75,14 @@ module.exports = tseslint.config(
       '@angular-eslint/prefer-on-push-component-change-detection': 'error',
       '@angular-eslint/prefer-inject': 'error',
       '@angular-eslint/prefer-signals': 'error',
-      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'thalpos', style: 'kebab-case' }],
-      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'thalpos', style: 'camelCase' }],
+      '@angular-eslint/component-selector': [
+        'error',
+        { type: 'element', prefix: 'thalpos', style: 'kebab-case' },
+      ],
+      '@angular-eslint/directive-selector': [
+        'error',
+        { type: 'attribute', prefix: 'thalpos', style: 'camelCase' },
+      ],
     },
   },
   {

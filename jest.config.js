@@ -1,6 +1,9 @@
 // One Jest run, several projects: each suite can also run alone with --selectProjects.
 const serverTransform = {
-  '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/tsconfig.server.json', diagnostics: { warnOnly: false } }],
+  '^.+\\.ts$': [
+    'ts-jest',
+    { tsconfig: '<rootDir>/tsconfig.server.json', diagnostics: { warnOnly: false } },
+  ],
 };
 // ESM-only packages that server code reaches through CommonJS dependencies (see the shim).
 const serverModules = { '^node-fetch$': '<rootDir>/tests/support/node-fetch-cjs.js' };
@@ -52,7 +55,10 @@ module.exports = {
       transform: {
         '^.+\\.(ts|js|mjs|html|svg)$': [
           'jest-preset-angular',
-          { tsconfig: '<rootDir>/client/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' },
+          {
+            tsconfig: '<rootDir>/client/tsconfig.spec.json',
+            stringifyContentPathRegex: '\\.(html|svg)$',
+          },
         ],
       },
       transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],

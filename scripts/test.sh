@@ -8,8 +8,8 @@ cd "$ROOT"
 ensure_node_modules
 # The whole run (no arguments) also lints and type-checks; a focused run skips straight to Jest.
 if [ $# -eq 0 ]; then
-  log "lint and type-check"
-  npx eslint . && npm run --silent typecheck
+  log "format, lint and type-check"
+  npx prettier --check . && npx eslint . && npm run --silent typecheck
 fi
 ensure_postgres
 ensure_chromium

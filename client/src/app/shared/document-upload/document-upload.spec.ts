@@ -81,17 +81,15 @@ describe('DocumentUpload', () => {
   it('shows the server’s refusal of a file that is not a PDF', async () => {
     const { fixture, upload, text } = setUp();
     upload.send(new File(['PNG'], 'photo.pdf', { type: 'application/pdf' }));
-    backend
-      .expectOne('/api/v1/sources/12/documents')
-      .flush(
-        {
-          error: {
-            code: 'not_pdf',
-            message: 'Only PDF documents can be attached; this file is not a PDF',
-          },
+    backend.expectOne('/api/v1/sources/12/documents').flush(
+      {
+        error: {
+          code: 'not_pdf',
+          message: 'Only PDF documents can be attached; this file is not a PDF',
         },
-        { status: 415, statusText: 'Unsupported Media Type' },
-      );
+      },
+      { status: 415, statusText: 'Unsupported Media Type' },
+    );
     await until(() => text().includes('this file is not a PDF'), fixture);
     expect(fixture.componentInstance.uploaded).toEqual([]);
   });
