@@ -3,6 +3,7 @@
  * stored decimal beside the number; shown in kJ/mol by moving the decimal point (exact, no
  * floating-point rounding), keeping every digit the source gave.
  */
+import type { RevisionView } from '@contracts/species/species-schemas';
 
 /** Exact J/mol text (`-285830`, `-74.6e3` is never sent) → kJ/mol text (`-285.83`). */
 export function kjFromJoulesText(text: string): string {
@@ -55,4 +56,15 @@ const kjFormat = new Intl.NumberFormat('en-US', {
 /** A J/mol number in kJ/mol for tables and charts (`-285830` → `−285.83`). */
 export function kjFromJoules(joules: number): string {
   return kjFormat.format(joules / 1000 || 0).replace('-', '−');
+}
+
+/** Stale-derived notices in words, so staleness never rests on colour alone. */
+export function staleWords(inputs: RevisionView['staleInputs']): string[] {
+  if (!inputs?.length) return ['Out of date: an input has changed since this was derived.'];
+  return inputs.map((i) => {
+    const what = `input #${i.inputRevisionId} (${i.species}, ${i.phase})`;
+    return i.supersededBy === null
+      ? `Out of date: ${what} was retired.`
+      : `Out of date: ${what} was superseded by revision #${i.supersededBy}.`;
+  });
 }

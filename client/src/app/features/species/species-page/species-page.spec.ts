@@ -211,6 +211,20 @@ describe('SpeciesPage', () => {
     );
   });
 
+  it('labels the current value as derived and says in words when it is out of date', async () => {
+    const answer = water();
+    answer.revisions[0] = {
+      ...answer.revisions[0],
+      derived: true,
+      stale: true,
+      staleInputs: [{ inputRevisionId: 7, supersededBy: null, species: 'hydrogen', phase: 'g' }],
+    };
+    await open('water', (r) => r.flush(answer));
+    const phase = text('.phase');
+    expect(phase).toContain('Derived');
+    expect(phase).toContain('Out of date: input #7 (hydrogen, g) was retired.');
+  });
+
   it('says plainly when the key names no species', async () => {
     await open('watter', (r) =>
       r.flush(

@@ -11,7 +11,13 @@ import { ReleaseContext } from '../../../core/release-context';
 import { ChemText } from '../../../shared/chem-text';
 import { phaseLabel, phaseName } from '../../../shared/phase-name';
 import { SpeciesApi } from '../species-api';
-import { basisWords, kjFromJoules, kjUncertainty, molarMassText } from '../species-format';
+import {
+  basisWords,
+  kjFromJoules,
+  kjUncertainty,
+  molarMassText,
+  staleWords,
+} from '../species-format';
 import { StructurePicture } from '../structure-picture/structure-picture';
 import { ReleaseValues } from './release-values/release-values';
 import { RevisionHistory } from './revision-history/revision-history';
@@ -74,8 +80,10 @@ export class SpeciesPage {
     const species = this.species();
     if (!species) return [];
     const release = this.context.effective();
+    const revisions = new Map(species.revisions.map((r) => [r.id, r]));
     return species.phases.map((p) => {
       const inRelease = p.formationEnthalpy.find((v) => v.release === release) ?? null;
+      const revision = inRelease ? revisions.get(inRelease.revisionId) : undefined;
       return {
         id: `${p.phase}-${p.modification ?? ''}`,
         label: species.formula + phaseLabel(p.phase, p.modification),
@@ -84,6 +92,8 @@ export class SpeciesPage {
         spread: inRelease ? kjUncertainty(inRelease.uncertainty) : null,
         basis: inRelease ? basisWords(inRelease.uncertaintyBasis) : '',
         revisionId: inRelease?.revisionId ?? null,
+        derived: revision?.derived === true,
+        staleNotices: revision?.stale ? staleWords(revision.staleInputs) : [],
       };
     });
   });

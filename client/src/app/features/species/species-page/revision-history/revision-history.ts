@@ -1,8 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { MatButton } from '@angular/material/button';
+import { Router } from '@angular/router';
 
 import type { SpeciesPage } from '@contracts/species/species-schemas';
+import { readableMessage } from '../../../../core/api-error';
+import { Session } from '../../../../core/session';
+import { SpeciesApi } from '../../species-api';
 import { phaseName } from '../../../../shared/phase-name';
-import { basisWords, kjFromJoulesText, kjUncertainty } from '../../species-format';
+import { basisWords, kjFromJoulesText, kjUncertainty, staleWords } from '../../species-format';
 
 type Revision = SpeciesPage['revisions'][number];
 type Source = SpeciesPage['sources'][number];
@@ -16,6 +21,7 @@ const KIND_WORDS: Readonly<Record<string, string>> = {
 /** Every revision of every value of the species, newest first, with what it superseded. */
 @Component({
   selector: 'thalpos-revision-history',
+  imports: [MatButton],
   template: `
     <section class="card" aria-labelledby="history-title">
       <h2 id="history-title">Revision history</h2>
@@ -39,6 +45,9 @@ const KIND_WORDS: Readonly<Record<string, string>> = {
                   @if (row.supersedes) {
                     <span class="sub">supersedes #{{ row.supersedes }}</span>
                   }
+                  @if (row.derived) {
+                    <span class="derived">Derived</span>
+                  }
                 </td>
                 <td>
                   {{ row.kind }} <span class="sub">{{ row.phase }}</span>
@@ -53,6 +62,23 @@ const KIND_WORDS: Readonly<Record<string, string>> = {
                   {{ row.status }}
                   @if (row.releases) {
                     <span class="sub">in {{ row.releases }}</span>
+                  }
+                  @for (notice of row.staleNotices; track notice) {
+                    <span class="stale" role="note">{{ notice }}</span>
+                  }
+                  @if (row.derived && mayRederive()) {
+                    <button
+                      mat-stroked-button
+                      type="button"
+                      class="rederive"
+                      [disabled]="busy() !== null"
+                      (click)="rederive(row.id)"
+                    >
+                      Re-derive
+                    </button>
+                    @if (failures()[row.id]; as failure) {
+                      <span class="problem" role="alert">{{ failure }}</span>
+                    }
                   }
                 </td>
                 <td class="source">
@@ -104,6 +130,24 @@ const KIND_WORDS: Readonly<Record<string, string>> = {
       font: var(--mat-sys-body-small);
       color: var(--mat-sys-on-surface-variant);
     }
+    .derived {
+      display: inline-block;
+      margin-top: 4px;
+      padding: 0 6px;
+      border: 1px solid var(--mat-sys-outline);
+      border-radius: var(--mat-sys-corner-small);
+      font: var(--mat-sys-label-small);
+    }
+    .stale,
+    .problem {
+      display: block;
+      margin-top: 4px;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-error);
+    }
+    .rederive {
+      margin-top: 4px;
+    }
     .source {
       font: var(--mat-sys-body-small);
       max-width: 20rem;
@@ -114,6 +158,33 @@ const KIND_WORDS: Readonly<Record<string, string>> = {
 export class RevisionHistory {
   readonly revisions = input.required<readonly Revision[]>();
   readonly sources = input.required<readonly Source[]>();
+
+  private readonly api = inject(SpeciesApi);
+  private readonly router = inject(Router);
+  private readonly session = inject(Session);
+
+  protected readonly mayRederive = computed(() =>
+    this.session.hasRole('curator', 'editor', 'admin'),
+  );
+  /** The revision whose re-derivation is under way, if any. */
+  protected readonly busy = signal<number | null>(null);
+  /** The server's refusal per revision id. */
+  protected readonly failures = signal<Readonly<Record<number, string>>>({});
+
+  protected rederive(id: number): void {
+    this.busy.set(id);
+    this.failures.update(({ [id]: _, ...rest }) => rest);
+    this.api.rederive(id).subscribe({
+      next: (answer) => {
+        this.busy.set(null);
+        void this.router.navigate(['/curation/proposals', answer.id, 'edit']);
+      },
+      error: (error: unknown) => {
+        this.busy.set(null);
+        this.failures.update((f) => ({ ...f, [id]: readableMessage(error) }));
+      },
+    });
+  }
 
   protected readonly rows = computed(() => {
     const citations = new Map(this.sources().map((s) => [s.id, s.citation]));
@@ -131,6 +202,8 @@ export class RevisionHistory {
         releases: r.releases.join(', '),
         citation: citations.get(r.sourceId) ?? `source #${r.sourceId}`,
         fromMemory: r.fromMemory,
+        derived: r.derived === true,
+        staleNotices: r.stale ? staleWords(r.staleInputs) : [],
       }));
   });
 }
