@@ -69,3 +69,15 @@ describe('reference states at 298.15 K, 1 bar', () => {
     expect(matchReferenceState('Fe', 'cr')).toEqual({ reference: true, assumed: false });
   });
 });
+
+describe('matchReferenceState with junk arguments', () => {
+  // A fuzzed call found this: a number as the modification threw a TypeError, not a coded error.
+  it('refuses a modification or phase that is not text with invalid_input', () => {
+    expect(() => matchReferenceState('U', null, 0 as unknown as string)).toThrow(
+      expect.objectContaining({ code: 'invalid_input' }),
+    );
+    expect(() => matchReferenceState('U', 1 as unknown as 'g')).toThrow(
+      expect.objectContaining({ code: 'invalid_input' }),
+    );
+  });
+});

@@ -98,6 +98,10 @@ export function matchReferenceState(
   phase: Phase | null,
   modification: string | null = null,
 ): ReferenceMatch {
+  if (phase !== null && typeof phase !== 'string')
+    throw new ThermoError('invalid_input', 'phase must be a string or null');
+  if (modification !== null && typeof modification !== 'string')
+    throw new ThermoError('invalid_input', 'modification must be a string or null');
   const parsed = typeof formula === 'string' ? parseFormula(formula) : formula;
   if (
     parsed === null ||
