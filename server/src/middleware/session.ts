@@ -49,7 +49,17 @@ export function sessionMiddleware({
     name: SESSION_COOKIE,
     secret,
     // The store's own touch would write on every request; the lifetime step below does it instead.
-    store: new Store({ pool, tableName: 'session', disableTouch: true }),
+    store: new Store({
+      pool,
+      tableName: 'session',
+      disableTouch: true,
+      // A prune that starts while the app shuts down finds the pool ended: not worth a report.
+      errorLog: (...args: unknown[]) => {
+        if (!String(args[args.length - 1]).includes('Cannot use a pool after calling end')) {
+          console.error(...args); // eslint-disable-line no-console -- the store reports through it
+        }
+      },
+    }),
     resave: false,
     saveUninitialized: false,
     rolling: false,
