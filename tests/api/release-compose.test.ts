@@ -1,5 +1,9 @@
 import { sql } from 'drizzle-orm';
 import request from 'supertest';
+import { systemClock } from '../../server/src/adapters/clock';
+import { createSmtpMailer } from '../../server/src/adapters/mailer';
+import { createLogger } from '../../server/src/lib/logger';
+import { createOutboxWorker } from '../../server/src/modules/mail/outbox-worker';
 import { acceptFormationValueIn, retireRevisionIn } from '../../server/src/db/accepted-revisions';
 import {
   DraftAnswer,
@@ -8,7 +12,9 @@ import {
   StaleAnswer,
 } from '../../server/src/modules/releases/release-drafts-schemas';
 import { ReleaseManifest } from '../../server/src/modules/releases/releases-schemas';
+import { ImpactAnswer } from '../../server/src/modules/watchlists/watchlists-schemas';
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
+import { receivedMail, sharedFakeSmtp, waitFor } from '../support/mail';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 describe('release composer', () => {
@@ -501,15 +507,25 @@ describe('release composer', () => {
   });
 
   describe('watchers', () => {
-    it('queues each watcher’s impact e-mail in the publish transaction', async () => {
+    it('mails each watcher the impact report, ΔrH in both releases, through the outbox and SMTP', async () => {
+      // An address of this run only: the fake SMTP server is shared by every test file.
+      const address = `tomas.${Date.now()}.${process.pid}@kestrel.example`;
       const reader = request.agent(t.app);
       const xsrf = await signIn(reader, 'demo-reader');
+      // After signing in, which copies the e-mail address from the provider's profile.
+      await t.db.pool.query(`update users set email = $1 where login = 'demo-reader'`, [address]);
+      const equation = 'H2(g) + 1/2 O2(g) -> H2O(l)';
       await reader
         .post('/api/v1/me/watchlists')
         .set('X-XSRF-TOKEN', xsrf)
-        .send({ name: 'Boiler feed', reactions: [{ equation: 'H2(g) + 1/2 O2(g) -> H2O(l)' }] })
+        .send({ name: 'Boiler feed', reactions: [{ equation }] })
         .expect(201);
+      const base = (
+        await one(`select version from releases where status = 'published'
+                   order by published_at desc limit 1`)
+      ).version as string;
       await create('2033.1').expect(201);
+      // The elements' ΔfH° is zero by definition, so ΔrH is the new water value itself.
       await accept('water', 'l', '-285000', { uncertainty: '40' });
       const stale = StaleAnswer.parse((await editor.get('/api/v1/releases/2033.1/stale')).body);
       if (stale.stale.length > 0) {
@@ -520,16 +536,62 @@ describe('release composer', () => {
           .expect(200);
       }
       await publish('2033.1').expect(200);
-      const mail = await rows(
-        `select to_address, subject, text from outbox_messages
+
+      // Queued in the publish transaction, for the watcher's address.
+      const queued = await rows(
+        `select to_address, subject from outbox_messages
          where event_kind = 'release.published' and recipient_id = $1`,
         [await userId('demo-reader')],
       );
-      expect(mail).toHaveLength(1);
-      expect(mail[0].to_address).toBe('tomas.reyes@kestrel.example');
-      expect(mail[0].subject).toContain('2033.1');
-      expect(mail[0].subject).toContain('Boiler feed');
-      expect(mail[0].text).toContain('H2(g) + 1/2 O2(g) -> H2O(l)');
+      expect(queued).toEqual([
+        {
+          to_address: address,
+          subject: 'Release 2033.1 published — impact on your watchlist “Boiler feed”',
+        },
+      ]);
+
+      // The same numbers the impact API reports for the two releases.
+      const impact = ImpactAnswer.parse(
+        (
+          await reader
+            .post(`/api/v1/releases/${base}/impact/2033.1`)
+            .set('X-XSRF-TOKEN', xsrf)
+            .send({ equations: [equation] })
+            .expect(200)
+        ).body,
+      );
+      const [item] = impact.results;
+      if (!item || 'error' in item.from || 'error' in item.to || item.change === null)
+        throw new Error(`impact report did not compute: ${JSON.stringify(item)}`);
+      expect(item.to.deltaH).toBeCloseTo(-285.0, 6);
+      expect(item.to.uncertainty).toBeCloseTo(0.04, 6);
+
+      const { url, apiUrl } = sharedFakeSmtp();
+      const mailer = createSmtpMailer({ url, from: 'Thalpos <no-reply@thalpos.invalid>' });
+      const worker = createOutboxWorker({
+        db: t.db.db,
+        mailer,
+        clock: systemClock,
+        logger: createLogger('silent'),
+      });
+      try {
+        while ((await worker.runOnce()).sent > 0);
+        const [mail] = await waitFor(async () => {
+          const got = await receivedMail(apiUrl, address);
+          return got.length > 0 && got;
+        });
+        expect(mail!.subject).toBe(queued[0].subject);
+        const fmt = (x: number) => `${x < 0 ? '−' : ''}${Math.abs(x).toFixed(2)}`;
+        expect(mail!.text).toContain(`- ${equation} (at 298.15 K)`);
+        expect(mail!.text).toContain(
+          `  ${base}: ΔrH = ${fmt(item.from.deltaH)} ± ${item.from.uncertainty!.toFixed(2)}`,
+        );
+        expect(mail!.text).toContain('  2033.1: ΔrH = −285.00 ± 0.04');
+        expect(mail!.text).toContain(`  change +${item.change.toFixed(2)} kJ/mol`);
+        expect(mail!.text).toContain(`/releases/diff/${base}/2033.1`);
+      } finally {
+        mailer.close();
+      }
     });
   });
 });

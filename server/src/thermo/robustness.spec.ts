@@ -176,7 +176,7 @@ describe('every failure is a ThermoError', () => {
       fc.property(fc.array(junk, { maxLength: 6 }), (args) => {
         for (const [, f] of functions) onlyThermoErrors(() => f(...args));
       }),
-      { numRuns: 300 },
+      { numRuns: Number(process.env.FUZZ_RUNS ?? 300) },
     );
   });
 });

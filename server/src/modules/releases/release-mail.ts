@@ -3,20 +3,51 @@ import type { Database, Tx } from '../../db/client';
 import { enqueueMail, type OutgoingMail } from '../mail/outbox';
 import { notificationsRepository } from '../notifications/notifications-repository';
 import { watchlistImpactsForRelease, type WatcherReport } from '../watchlists/watchlist-impacts';
+import type { ImpactSide } from '../watchlists/watchlists-schemas';
 import { watchlistsRepository } from '../watchlists/watchlists-repository';
 import { draftRepository } from './draft-repository';
 import { createReleasesService, type OnPublished } from './releases-service';
 
-const kj = (x: number) => `${x < 0 ? '−' : x > 0 ? '+' : ''}${Math.abs(x).toFixed(2)}`;
+const signed = (x: number) => `${x < 0 ? '−' : x > 0 ? '+' : ''}${Math.abs(x).toFixed(2)}`;
+const plain = (x: number) => `${x < 0 ? '−' : ''}${Math.abs(x).toFixed(2)}`;
+const BASIS: Record<string, string> = {
+  standard: 'standard uncertainty',
+  expanded_k2: 'expanded, k = 2',
+  as_stated: 'as stated',
+  mixed: 'mixed bases',
+};
+
+/** One release's ΔrH of a watched reaction, as a line of the e-mail. */
+function sideLine(version: string, s: ImpactSide, unit: string): string {
+  if ('error' in s) return `  ${version}: cannot be computed: ${s.error.message}`;
+  const u =
+    s.uncertainty === null
+      ? ''
+      : ` ± ${s.uncertainty.toFixed(2)} (${BASIS[s.uncertaintyBasis] ?? s.uncertaintyBasis})`;
+  return `  ${version}: ΔrH = ${plain(s.deltaH)}${u} ${unit}`;
+}
 
 /** The plain-text impact e-mail of one watchlist for a newly published release. Pure. */
 export function releaseImpactMail(r: WatcherReport, publicUrl: string): Omit<OutgoingMail, 'to'> {
   const { report, watchlist } = r;
   const lines = report.results.map((item) => {
     const name = item.label ? `${item.label}: ${item.input}` : item.input;
-    if (item.change === null) return `- ${name}\n  cannot be computed in one of the releases`;
+    const head = `- ${name} (at ${item.temperatureK} K)`;
+    const sides = [
+      sideLine(report.from, item.from, report.unit),
+      sideLine(report.to, item.to, report.unit),
+    ];
+    if (item.change === null) return [head, ...sides].join('\n');
+    const combined =
+      item.combinedUncertainty === null
+        ? ''
+        : ` (combined uncertainty ${item.combinedUncertainty.toFixed(2)})`;
     const flag = item.exceedsUncertainty ? '  ← beyond the combined uncertainty' : '';
-    return `- ${name}\n  change ${kj(item.change)} ${report.unit}${flag}`;
+    return [
+      head,
+      ...sides,
+      `  change ${signed(item.change)} ${report.unit}${combined}${flag}`,
+    ].join('\n');
   });
   const summary =
     report.exceeding > 0

@@ -15,10 +15,10 @@ const PHASE_NAMES: Record<Phase, string> = {
 
 /** The phase spelled out for people: "gas", "crystal, diamond", "aqueous"; null when unwritten. */
 export function phaseName(phase: Phase | null, modification: string | null = null): string | null {
-  if (phase === null) return null;
+  // Own keys only: a phase read from outside must not reach Object.prototype's members.
+  if (typeof phase !== 'string' || !Object.hasOwn(PHASE_NAMES, phase)) return null;
   const name = PHASE_NAMES[phase];
-  if (name === undefined) return null;
-  return modification === null ? name : `${name}, ${modification}`;
+  return typeof modification === 'string' ? `${name}, ${modification}` : name;
 }
 
 /** A species identified by its formula (composition known). */
