@@ -26,3 +26,20 @@ export interface RouteDoc {
 
 export const file = (mediaType: string, description: string) => ({ mediaType, description });
 export const none = file('text/plain', 'no content');
+
+/** An entry of a group: the tag is the group's, and so is the access unless it names its own. */
+export type GroupedDoc = Omit<RouteDoc, 'tag' | 'access'> & { access?: Access };
+
+/** Routes under one tag, mostly at one access level, so each entry says only what is its own. */
+export function routeGroup(
+  tag: string,
+  access: Access,
+  entries: Record<string, GroupedDoc>,
+): Record<string, RouteDoc> {
+  return Object.fromEntries(
+    Object.entries(entries).map(([key, doc]) => [
+      key,
+      { ...doc, tag, access: doc.access ?? access },
+    ]),
+  );
+}
