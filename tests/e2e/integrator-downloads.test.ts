@@ -1,53 +1,28 @@
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
-import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import {
   DESKTOP,
   openBrowser,
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInFromHome,
   type BrowserSession,
 } from '../support/browser';
+import { publishRevisedWater } from '../support/releases';
 
 describe('an integrator downloads a release, checks its checksum and compares releases', () => {
   let s: BrowserSession;
   beforeAll(async () => {
     s = await openBrowser();
-    // A second release in which liquid water's ΔfH° moved by 0.5 kJ/mol (test data), published
-    // through the release service before the browser first reads the release list.
-    const editor = (await s.t.db.pool.query(`select id from users where login = 'demo-editor'`))
-      .rows[0] as { id: number };
-    const releases = createReleasesService(s.t.db.db);
-    await s.t.db.db.transaction(async (tx) => {
-      await tx.execute(`
-        with old as (
-          update revisions r set status = 'superseded', status_changed_at = now()
-          from species_phases sp join species s on s.id = sp.species_id
-          where sp.id = r.species_phase_id and s.key = 'water' and sp.phase = 'l'
-            and r.quantity = 'formation_enthalpy' and r.status = 'accepted'
-          returning r.*)
-        insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
-          uncertainty_basis, method, standard_pressure, source_id, status, supersedes_id)
-        select species_phase_id, kind, quantity, value + 500, uncertainty,
-          uncertainty_basis, method, standard_pressure, source_id, 'accepted', id from old`);
-      await releases.createDraftIn(tx, editor, '2026.2', 'Water revised (test data)');
-      await releases.publishIn(tx, editor, '2026.2');
-    });
+    // 2026.2, where liquid water's ΔfH° moved by 0.5 kJ/mol, before the page reads the releases.
+    await publishRevisedWater(s.t);
   });
   afterAll(() => s.close());
 
   it('downloads the CSV of 2026.1 and finds the SHA-256 the page shows', async () => {
-    const { page, baseUrl } = s;
-    await page.goto(baseUrl);
-    await page
-      .getByRole('link', { name: /sign in/i })
-      .first()
-      .click();
-    await page.waitForURL(/\/login\/oauth\/authorize/);
-    await page.getByRole('link', { name: /demo-reader/ }).click();
-    await page.waitForURL(`${baseUrl}/`);
-    await page.getByText('Tomas Reyes').waitFor();
+    const { page } = s;
+    await signInFromHome(s, 'demo-reader', 'Tomas Reyes');
 
     await page.getByRole('link', { name: 'Releases', exact: true }).click();
     await page.waitForURL(/\/releases$/);

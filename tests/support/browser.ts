@@ -80,3 +80,20 @@ export const screenshot = (page: Page, name: string) =>
 /** How far the page sticks out sideways beyond the viewport (0 when it fits). */
 export const sidewaysOverflow = (page: Page) =>
   page.evaluate<number>('document.documentElement.scrollWidth - window.innerWidth');
+
+/**
+ * Signs in as a person does: the Sign in link, the local provider's chooser page (on its own
+ * origin), then back on the home page once the top bar shows the user's name.
+ */
+export async function signInFromHome(s: BrowserSession, login: string, name: string) {
+  const { page, baseUrl } = s;
+  await page.goto(baseUrl);
+  await page
+    .getByRole('link', { name: /sign in/i })
+    .first()
+    .click();
+  await page.waitForURL(/\/login\/oauth\/authorize/);
+  await page.getByRole('link', { name: new RegExp(login) }).click();
+  await page.waitForURL(`${baseUrl}/`);
+  await page.getByText(name).waitFor();
+}
