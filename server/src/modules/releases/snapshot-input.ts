@@ -1,4 +1,5 @@
 import type { HeatCapacityModel, ShomateRange } from '../../thermo';
+import type { Tx } from '../../db/client';
 import type { Queryable } from './releases-repository';
 import { releasesRepository } from './releases-repository';
 import type {
@@ -89,23 +90,40 @@ const sourceOf = (r: {
   doi: r.doi,
 });
 
+const QUANTITIES = ['formation_enthalpy', 'heat_capacity', 'transition'] as const;
+
+/**
+ * The pinned rows of a release. A published release never changes, so on a pool its three
+ * queries run at once on their own connections (a cold load waits for the slowest, not the sum);
+ * inside a caller's transaction, or for a draft, they run one after another in one snapshot.
+ */
+async function readPinnedRows(db: Queryable, release: { id: number; publishedAt: Date | null }) {
+  const read = async (tx: Tx, quantity: (typeof QUANTITIES)[number]) => {
+    await releasesRepository.preferKeyProbes(tx);
+    // Species come with their rows, so no separate species query is needed.
+    return releasesRepository.pinned(tx, release.id, quantity);
+  };
+  const onPool = '$client' in db && release.publishedAt !== null;
+  const [formation, heat, transitions] = onPool
+    ? await Promise.all(QUANTITIES.map((q) => db.transaction((tx) => read(tx, q))))
+    : await db.transaction(async (tx) => {
+        const rows = [];
+        for (const q of QUANTITIES) rows.push(await read(tx, q));
+        return rows;
+      });
+  const ranges = await releasesRepository.rangesOf(
+    db,
+    heat!.map((h) => h.revisionId),
+  );
+  return { formation: formation!, heat: heat!, transitions: transitions!, ranges };
+}
+
 /** The plain rows of one release from the database: what `buildSnapshot` indexes. */
 export async function loadSnapshotInput(
   db: Queryable,
   release: { id: number; version: string; publishedAt: Date | null },
 ): Promise<SnapshotInput> {
-  const { formation, heat, transitions, ranges } = await db.transaction(async (tx) => {
-    await releasesRepository.preferKeyProbes(tx);
-    // Species come with their rows, so no separate species query is needed.
-    const formation = await releasesRepository.pinned(tx, release.id, 'formation_enthalpy');
-    const heat = await releasesRepository.pinned(tx, release.id, 'heat_capacity');
-    const transitions = await releasesRepository.pinned(tx, release.id, 'transition');
-    const ranges = await releasesRepository.rangesOf(
-      tx,
-      heat.map((h) => h.revisionId),
-    );
-    return { formation, heat, transitions, ranges };
-  });
+  const { formation, heat, transitions, ranges } = await readPinnedRows(db, release);
   const rangesByRevision = new Map<number, RangeRow[]>();
   for (const r of ranges) {
     const list = rangesByRevision.get(r.revisionId);
