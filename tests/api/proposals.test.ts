@@ -198,6 +198,17 @@ describe('proposals: workflow and roles', () => {
     expect((await row(t, 'select status from proposals where id = $1', [id])).status).toBe(
       'rejected',
     );
+    // Each refusal is audited as its own action, without the change it asked for.
+    const refused = await t.db.pool.query(
+      `select u.login, a.after from audit_log a join users u on u.id = a.actor_id
+        where a.action = 'proposal.decision_refused' and a.entity_id = $1 order by a.id`,
+      [id],
+    );
+    expect(refused.rows).toEqual([
+      { login: 'demo-editor', after: { decision: 'approve', code: 'own_proposal' } },
+      { login: 'demo-curator', after: { decision: 'approve', code: 'forbidden' } },
+      { login: 'demo-reader', after: { decision: 'approve', code: 'forbidden' } },
+    ]);
   });
 
   it('lets only the author withdraw, from draft or submitted', async () => {

@@ -1,5 +1,5 @@
 import type { ProposalItemRow, RevisionStatus } from '../../../../schema';
-import type { Tx } from '../../db/client';
+import { pgErrorCode, type Tx } from '../../db/client';
 import { AppError } from '../../lib/app-error';
 import { storedFormula } from './item-check';
 import { proposalsRepository } from './proposals-repository';
@@ -221,4 +221,23 @@ export async function applyItems(
     await proposalsRepository.setItem(tx, item.id, { createdRevisionId: revisionId });
   }
   return created;
+}
+
+/** A unique index that refused an approval: a concurrent change got there first. */
+export function conflictOf(err: unknown): unknown {
+  if (pgErrorCode(err) !== '23505') return err;
+  const constraint = (err as { cause?: { constraint?: string } }).cause?.constraint ?? '';
+  if (constraint === 'revisions_one_accepted_idx')
+    return new AppError(
+      409,
+      'stale',
+      'Another value of the same species-phase was accepted meanwhile',
+      { constraint },
+    );
+  return new AppError(
+    409,
+    'duplicate_species',
+    'A species with the same key, CAS RN or InChIKey exists already',
+    { constraint },
+  );
 }

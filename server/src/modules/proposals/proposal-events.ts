@@ -1,3 +1,4 @@
+import type { ProposalRow } from '../../../../schema';
 import type { Tx } from '../../db/client';
 import type { Decision, ProposalStatus } from './proposals-schemas';
 
@@ -50,3 +51,29 @@ export type ProposalEventType = ProposalEvent['type'];
 export type ProposalEventSink = (tx: Tx, event: ProposalEvent) => Promise<void>;
 
 export const ignoreProposalEvents: ProposalEventSink = async () => {};
+
+type BaseKey = 'proposalId' | 'actorId' | 'actor' | 'author' | 'title' | 'participants' | 'at';
+/** An event without what `emit` fills in. */
+export type EventDetails = ProposalEvent extends infer E
+  ? E extends ProposalEvent
+    ? Omit<E, BaseKey>
+    : never
+  : never;
+
+/** What every event of a proposal carries; `emit` adds it to the event's own details. */
+export function eventBase(
+  p: ProposalRow,
+  actor: EventUser,
+  author: EventUser,
+  participants: EventUser[],
+) {
+  return {
+    proposalId: p.id,
+    actorId: actor.id,
+    actor,
+    author,
+    title: p.rationale.split('\n', 1)[0]!.slice(0, 200),
+    participants: participants.filter((u) => u.id !== author.id && u.id !== actor.id),
+    at: new Date(),
+  };
+}

@@ -84,11 +84,22 @@ export function proposalsRouter(service: ProposalsService): Router {
   });
 
   const decide = validate({ params: IdParams, body: DecisionBody });
-  router.post('/proposals/:id/decision', requireRole('editor'), decide, async (req, res) => {
-    const { params, body } = decide.input(res);
-    const answer = await service.decide(req.user!, params.id, body.decision, body.comment);
-    res.json(answer satisfies TransitionAnswer);
-  });
+  router.post(
+    '/proposals/:id/decision',
+    requireSignIn,
+    decide,
+    requireRole('editor', {
+      onRefused: (_req, res, actor) => {
+        const { params, body } = decide.input(res);
+        return service.recordRefusedDecision(actor, params.id, body.decision, 'forbidden');
+      },
+    }),
+    async (req, res) => {
+      const { params, body } = decide.input(res);
+      const answer = await service.decide(req.user!, params.id, body.decision, body.comment);
+      res.json(answer satisfies TransitionAnswer);
+    },
+  );
 
   const rederive = validate({ params: IdParams, body: RederiveBody });
   router.post('/revisions/:id/rederive', requireRole('curator'), rederive, async (req, res) => {

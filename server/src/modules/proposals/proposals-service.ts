@@ -1,5 +1,5 @@
 import type { ProposalRow, UserRow } from '../../../../schema';
-import { pgErrorCode, type Database, type Tx } from '../../db/client';
+import type { Database, Tx } from '../../db/client';
 import { AppError, forbidden, notFound } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit-repository';
 import { createReactionsService } from '../reactions/reactions-service';
@@ -7,11 +7,12 @@ import type { ReleaseSnapshot } from '../releases/release-snapshot';
 import { usersRepository } from '../users/users-repository';
 import { snapshotSource, type SnapshotSource } from './derivation';
 import { checkAndResolve } from './item-check';
-import { applyItems, staleError, staleReasons } from './proposal-approval';
+import { applyItems, conflictOf, staleError, staleReasons } from './proposal-approval';
 import { buildDetail, toSummary } from './proposal-detail';
 import {
+  eventBase,
   ignoreProposalEvents,
-  type EventUser,
+  type EventDetails,
   type ProposalEvent,
   type ProposalEventSink,
 } from './proposal-events';
@@ -49,6 +50,8 @@ export interface ProposalsServiceDeps {
   onEvent?: ProposalEventSink;
 }
 
+/** Refusals of who the actor is, as opposed to the proposal's state. */
+const REFUSALS = new Set(['own_proposal', 'forbidden', 'role_revoked']);
 const FINAL: ProposalStatus[] = ['approved', 'rejected', 'withdrawn'];
 const DECIDED_STATUS: Record<Decision, ProposalStatus> = {
   approve: 'approved',
@@ -87,7 +90,7 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
     const author = await proposalsRepository.userById(tx, p.authorId);
     const actorUser = await proposalsRepository.userById(tx, actor.id);
     const participants = await proposalsRepository.participants(tx, p.id);
-    await sink(tx, { ...baseOf(p, actorUser, author, participants), ...event } as ProposalEvent);
+    await sink(tx, { ...eventBase(p, actorUser, author, participants), ...event } as ProposalEvent);
   }
 
   const audit = (
@@ -320,8 +323,22 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
           return transition(row, { createdRevisionIds: created });
         });
       } catch (err) {
+        // Own proposal, or a role lost meanwhile: audited outside the rolled-back transaction.
+        if (err instanceof AppError && REFUSALS.has(err.code))
+          await service.recordRefusedDecision(actor, id, decision, err.code);
         throw conflictOf(err);
       }
+    },
+
+    /** A refused decision is audited as its own action, without the change it asked for. */
+    async recordRefusedDecision(actor: Actor, id: number, decision: Decision, code: string) {
+      await recordAudit(db, {
+        actorId: actor.id,
+        action: 'proposal.decision_refused',
+        entityType: 'proposal',
+        entityId: id,
+        after: { decision, code },
+      });
     },
 
     async list(actor: UserRow, q: ProposalListQuery): Promise<ProposalList> {
@@ -363,45 +380,6 @@ export function createProposalsService({ db, releases, onEvent }: ProposalsServi
     watchlistImpact: (actor: UserRow, id: number) =>
       watchlistImpact(db, actor, id, snapshots(db), reactions),
   };
-}
-
-type BaseKey = 'proposalId' | 'actorId' | 'actor' | 'author' | 'title' | 'participants' | 'at';
-/** An event without what `emit` fills in. */
-type EventDetails = ProposalEvent extends infer E
-  ? E extends ProposalEvent
-    ? Omit<E, BaseKey>
-    : never
-  : never;
-
-function baseOf(p: ProposalRow, actor: EventUser, author: EventUser, participants: EventUser[]) {
-  return {
-    proposalId: p.id,
-    actorId: actor.id,
-    actor,
-    author,
-    title: p.rationale.split('\n', 1)[0]!.slice(0, 200),
-    participants: participants.filter((u) => u.id !== author.id && u.id !== actor.id),
-    at: new Date(),
-  };
-}
-
-/** A unique index that refused an approval: a concurrent change got there first. */
-function conflictOf(err: unknown): unknown {
-  if (pgErrorCode(err) !== '23505') return err;
-  const constraint = (err as { cause?: { constraint?: string } }).cause?.constraint ?? '';
-  if (constraint === 'revisions_one_accepted_idx')
-    return new AppError(
-      409,
-      'stale',
-      'Another value of the same species-phase was accepted meanwhile',
-      { constraint },
-    );
-  return new AppError(
-    409,
-    'duplicate_species',
-    'A species with the same key, CAS RN or InChIKey exists already',
-    { constraint },
-  );
 }
 
 export type ProposalsService = ReturnType<typeof createProposalsService>;
