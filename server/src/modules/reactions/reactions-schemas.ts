@@ -17,14 +17,15 @@ const releaseLabel = z
   .max(40, 'is longer than 40 characters')
   .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'must be a release label such as 2026.1 or latest');
 
-const equationText = z
+/** A reaction equation as typed; watchlists and impact reports take the same. */
+export const EquationText = z
   .string()
   .trim()
   .min(1, 'is empty')
   .max(2000, 'is longer than 2000 characters');
 
 /** Kelvin, above absolute zero; the engine answers `out_of_range` past the data's ranges. */
-const temperature = z
+export const TemperatureK = z
   .number()
   .finite()
   .positive('must be above 0 K')
@@ -32,9 +33,9 @@ const temperature = z
 
 export const ReactionBody = z
   .object({
-    equation: equationText,
+    equation: EquationText,
     release: releaseLabel.default('latest'),
-    temperatureK: temperature.default(STANDARD_TEMPERATURE_K),
+    temperatureK: TemperatureK.default(STANDARD_TEMPERATURE_K),
     unit: ReactionUnit.default('kJ/mol'),
   })
   .strict();
@@ -42,14 +43,14 @@ export const ReactionBody = z
 /** The GET form: the same fields as query parameters (numbers arrive as text). */
 export const ReactionQuery = z
   .object({
-    equation: equationText,
+    equation: EquationText,
     release: releaseLabel.default('latest'),
     temperatureK: z
       .string()
       .trim()
       .regex(/^[0-9]+(\.[0-9]+)?([eE][+-]?[0-9]+)?$/, 'must be a number of kelvin such as 298.15')
       .transform(Number)
-      .pipe(temperature)
+      .pipe(TemperatureK)
       .optional()
       .transform((t) => t ?? STANDARD_TEMPERATURE_K),
     unit: ReactionUnit.default('kJ/mol'),
@@ -68,7 +69,7 @@ export const BatchBody = z
           .object({
             id: z.union([z.string().max(200), z.number().finite()]).optional(),
             equation: z.string().max(2000, 'is longer than 2000 characters'),
-            temperatureK: temperature.optional(),
+            temperatureK: TemperatureK.optional(),
           })
           .strict(),
       )

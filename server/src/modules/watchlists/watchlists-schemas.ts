@@ -1,7 +1,13 @@
 import { z } from 'zod';
 import type { WatchlistRow } from '../../../../schema';
 import { IdParams, INT4_MAX } from '../../middleware/validate';
-import { ErrorBody, ReactionUnit, STANDARD_TEMPERATURE_K } from '../reactions/reactions-schemas';
+import {
+  EquationText,
+  ErrorBody,
+  ReactionUnit,
+  STANDARD_TEMPERATURE_K,
+  TemperatureK,
+} from '../reactions/reactions-schemas';
 
 /**
  * The contract of watchlists (`/api/v1/me/watchlists`) and impact reports
@@ -11,22 +17,11 @@ import { ErrorBody, ReactionUnit, STANDARD_TEMPERATURE_K } from '../reactions/re
 export const WATCHLIST_MAX_REACTIONS = 1000;
 export const IMPACT_MAX_EQUATIONS = 1000;
 
-const equationText = z
-  .string()
-  .trim()
-  .min(1, 'is empty')
-  .max(2000, 'is longer than 2000 characters');
-const temperature = z
-  .number()
-  .finite()
-  .positive('must be above 0 K')
-  .max(100_000, 'must be at most 100000 K');
-
 export const WatchedReaction = z
   .object({
-    equation: equationText,
+    equation: EquationText,
     label: z.string().trim().max(200, 'is longer than 200 characters').optional(),
-    temperatureK: temperature.optional(),
+    temperatureK: TemperatureK.optional(),
   })
   .strict();
 
@@ -49,14 +44,14 @@ export const ImpactParams = z.object({ a: releaseLabel, b: releaseLabel });
 export const ImpactBody = z
   .object({
     equations: z
-      .array(equationText)
+      .array(EquationText)
       .min(1, 'needs at least one equation')
       .max(IMPACT_MAX_EQUATIONS, `takes at most ${IMPACT_MAX_EQUATIONS} equations`)
       .optional(),
     /** One of the caller's own watchlists instead of `equations`. */
     watchlistId: z.number().int().positive().max(INT4_MAX).optional(),
     /** For every equation (a watchlist's own temperatures win). */
-    temperatureK: temperature.optional(),
+    temperatureK: TemperatureK.optional(),
     unit: ReactionUnit.default('kJ/mol'),
   })
   .strict()
