@@ -158,10 +158,19 @@ describe('release exports', () => {
       expect(res.headers['content-disposition']).toBe(
         `attachment; filename="thalpos-2026.1.${format}"`,
       );
+      expect(res.headers['content-length']).toBe(String(stated.bytes));
       await request(t.app)
         .get(`/api/v1/releases/2026.1/export.${format}`)
         .set('If-None-Match', res.headers.etag!)
         .expect(304);
+      const head = await request(t.app)
+        .head(`/api/v1/releases/2026.1/export.${format}`)
+        .expect(200);
+      expect(head.headers).toMatchObject({
+        'content-length': String(stated.bytes),
+        etag: res.headers.etag,
+        'cache-control': IMMUTABLE_CACHE,
+      });
     },
   );
 

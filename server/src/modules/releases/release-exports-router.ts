@@ -92,6 +92,12 @@ export function releaseExportsRouter(
       res.status(304).end();
       return;
     }
+    // The stored size: a download shows its progress, and HEAD answers without reading the bytes.
+    res.setHeader('Content-Length', digest.bytes);
+    if (req.method === 'HEAD') {
+      res.end();
+      return;
+    }
     await streamExport(req, res, () => exportsService.write(release, format, responseSink(res)));
   });
 
