@@ -1,6 +1,12 @@
 import { z } from 'zod';
 import { UNCERTAINTY_BASES } from '../../server/src/thermo';
-import type { CsvRecord, RowError } from './csv-table';
+import {
+  readCsv,
+  type CsvRecord,
+  type ParseResult,
+  type RowError,
+  type TextInput,
+} from './csv-table';
 import { DECIMAL_PATTERN, ENERGY_UNITS, toJoulesPerMoleText } from './decimal-text';
 import {
   DATA_PHASES,
@@ -48,6 +54,62 @@ export const cell = {
   fromMemory: z.enum(['yes', 'no'], { message: 'yes or no' }).transform((v) => v === 'yes'),
 };
 
+/** The cells a value row ends with: where it came from, and notes. */
+export const sourceCells = {
+  source: cell.required,
+  from_memory: cell.fromMemory,
+  notes: cell.optional,
+};
+
+/** The cells of an energy value (ΔfH°, ΔtrsH) as its source printed it, then `sourceCells`. */
+export const valueCells = {
+  value: cell.decimal,
+  unit: cell.unit,
+  uncertainty: cell.positiveDecimal,
+  uncertainty_basis: cell.basis,
+  method: cell.method,
+  standard_pressure_pa: cell.pressure,
+  ...sourceCells,
+};
+
+/** How a row's checks report a problem: the message and the column it concerns. */
+export type Report = (message: string, column: string) => void;
+
+/**
+ * Reads a CSV file's rows: each record's cells checked against `schema`, then `toRow` with a
+ * report for that record's line. A row with any problem reported is left out of `rows`.
+ */
+export function readRows<S extends z.ZodType, T>(
+  input: TextInput,
+  file: string,
+  columns: readonly string[],
+  schema: S,
+  toRow: (c: z.infer<S>, line: number, report: Report) => T | null,
+): ParseResult<T> {
+  const { records, errors } = readCsv(input, file, columns);
+  const rows: T[] = [];
+  for (const record of records) {
+    const c = validateCells(schema, record, file, errors);
+    if (c === null) continue;
+    const before = errors.length;
+    const row = toRow(c, record.line, (message, column) => {
+      rowError(errors, file, record.line, message, column);
+    });
+    if (row !== null && errors.length === before) rows.push(row);
+  }
+  return { rows, errors };
+}
+
+/** Remembers where each identity first stood: a repeat's earlier line, else undefined. */
+export function firstLines(): (id: string, line: number) => number | undefined {
+  const first = new Map<string, number>();
+  return (id, line) => {
+    const earlier = first.get(id);
+    if (earlier === undefined) first.set(id, line);
+    return earlier;
+  };
+}
+
 /** Validates one record's cells; schema issues become row errors naming their column. */
 export function validateCells<S extends z.ZodType>(
   schema: S,
@@ -77,14 +139,9 @@ export function rowError(
 }
 
 /** value/unit/uncertainty cells → EnergyFields with exact J/mol text; reports a lone basis. */
-export function energyFields(
-  cells: {
-    value: string;
-    unit: (typeof ENERGY_UNITS)[number];
-    uncertainty: string | null;
-    uncertainty_basis: (typeof UNCERTAINTY_BASES)[number] | null;
-  },
-  report: (message: string, column: string) => void,
+function energyFields(
+  cells: z.infer<z.ZodObject<typeof valueCells>>,
+  report: Report,
 ): EnergyFields {
   if (cells.uncertainty === null && cells.uncertainty_basis !== null)
     report('a basis without an uncertainty', 'uncertainty_basis');
@@ -104,12 +161,24 @@ export function energyFields(
   };
 }
 
+/** The fields every value row ends with: its energy (exact J/mol too) and its provenance. */
+export function valueFields(cells: z.infer<z.ZodObject<typeof valueCells>>, report: Report) {
+  return {
+    ...energyFields(cells, report),
+    method: cells.method,
+    standardPressurePa: cells.standard_pressure_pa,
+    source: cells.source,
+    fromMemory: cells.from_memory,
+    notes: cells.notes,
+  };
+}
+
 /** Modification labels belong to crystals only (graphite, calcite, rutile…). */
 export function checkModification(
   phase: string,
   modification: string | null,
   column: string,
-  report: (message: string, column: string) => void,
+  report: Report,
 ): void {
   if (modification !== null && phase !== 'cr')
     report(`a modification (${modification}) is only given for phase cr`, column);
@@ -120,7 +189,7 @@ export function checkReferences(
   refs: CrossReferences,
   species: string,
   source: string | null,
-  report: (message: string, column: string) => void,
+  report: Report,
 ): void {
   if (refs.species !== undefined && !refs.species.has(species))
     report(`unknown species key ${species}`, 'species');

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { validateModel, type HeatCapacityModel } from '../../server/src/thermo';
-import { readCsv, type ParseResult, type TextInput } from './csv-table';
-import { cell, checkModification, checkReferences, rowError, validateCells } from './cells';
+import type { ParseResult, TextInput } from './csv-table';
+import { cell, checkModification, checkReferences, readRows, rowError, sourceCells } from './cells';
 import { speciesPhaseKey } from './formation-csv';
 import type { CoefficientRange, CrossReferences, HeatCapacitySet } from './row-types';
 
@@ -41,9 +41,7 @@ const schema = z.object({
   c6: cell.optionalNumber,
   c7: cell.optionalNumber,
   c8: cell.optionalNumber,
-  source: cell.required,
-  from_memory: cell.fromMemory,
-  notes: cell.optional,
+  ...sourceCells,
 });
 
 type Cells = z.infer<typeof schema>;
@@ -144,22 +142,18 @@ export function parseHeatCapacityCsv(
   input: TextInput,
   refs: CrossReferences = {},
 ): ParseResult<HeatCapacitySet> {
-  const { records, errors } = readCsv(input, FILE, HEAT_CAPACITY_COLUMNS);
-  const groups = new Map<string, Row[]>();
-  for (const record of records) {
-    const c = validateCells(schema, record, FILE, errors);
-    if (c === null) continue;
-    const before = errors.length;
-    const report = (message: string, column: string): void => {
-      rowError(errors, FILE, record.line, message, column);
-    };
+  const read = readRows(input, FILE, HEAT_CAPACITY_COLUMNS, schema, (c, line, report): Row => {
     checkModification(c.phase, c.modification, 'modification', report);
     checkReferences(refs, c.species, c.source, report);
     if (!(Number(c.t_min_k) < Number(c.t_max_k)))
       report('t_min_k must be below t_max_k', 't_max_k');
-    if (errors.length > before) continue;
-    const id = speciesPhaseKey(c.species, c.phase, c.modification);
-    groups.set(id, [...(groups.get(id) ?? []), { line: record.line, c }]);
+    return { line, c };
+  });
+  const errors = read.errors;
+  const groups = new Map<string, Row[]>();
+  for (const row of read.rows) {
+    const id = speciesPhaseKey(row.c.species, row.c.phase, row.c.modification);
+    groups.set(id, [...(groups.get(id) ?? []), row]);
   }
   const rows: HeatCapacitySet[] = [];
   for (const [id, group] of groups) {

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { parseFormula } from '../../server/src/thermo';
-import { readCsv, type ParseResult, type TextInput } from './csv-table';
-import { cell, rowError, validateCells } from './cells';
+import type { ParseResult, TextInput } from './csv-table';
+import { cell, firstLines, readRows, type Report } from './cells';
 import type { SpeciesRow } from './row-types';
 
 const FILE = 'species.csv';
@@ -50,27 +50,15 @@ export function casCheckDigitValid(casRn: string): boolean {
 }
 
 export function parseSpeciesCsv(input: TextInput): ParseResult<SpeciesRow> {
-  const { records, errors } = readCsv(input, FILE, SPECIES_COLUMNS);
-  const rows: SpeciesRow[] = [];
-  const firstLine = new Map<string, number>();
-  const seen = (column: string, value: string | null, line: number): boolean => {
-    if (value === null) return false;
-    const id = `${column}\u0000${value}`;
-    const earlier = firstLine.get(id);
-    if (earlier === undefined) firstLine.set(id, line);
-    else rowError(errors, FILE, line, `${column} ${value} already on line ${earlier}`, column);
-    return earlier !== undefined;
+  const seenOn = firstLines();
+  const once = (column: string, value: string | null, line: number, report: Report): void => {
+    const earlier = value === null ? undefined : seenOn(`${column}\u0000${value}`, line);
+    if (earlier !== undefined) report(`${column} ${value} already on line ${earlier}`, column);
   };
-  for (const record of records) {
-    const c = validateCells(schema, record, FILE, errors);
-    if (c === null) continue;
-    const before = errors.length;
-    const report = (message: string, column: string): void => {
-      rowError(errors, FILE, record.line, message, column);
-    };
-    seen('key', c.key, record.line);
-    seen('cas_rn', c.cas_rn, record.line);
-    seen('inchikey', c.inchikey, record.line);
+  return readRows(input, FILE, SPECIES_COLUMNS, schema, (c, line, report): SpeciesRow | null => {
+    once('key', c.key, line, report);
+    once('cas_rn', c.cas_rn, line, report);
+    once('inchikey', c.inchikey, line, report);
     if (c.cas_rn !== null && !casCheckDigitValid(c.cas_rn))
       report(`CAS RN ${c.cas_rn} has a wrong check digit`, 'cas_rn');
     if ((c.inchi === null) !== (c.inchikey === null))
@@ -86,9 +74,9 @@ export function parseSpeciesCsv(input: TextInput): ParseResult<SpeciesRow> {
     const synonyms = (c.synonyms ?? '').split('|').map((s) => s.trim());
     if (c.synonyms !== null && synonyms.some((s) => s === ''))
       report('an empty synonym (synonyms are separated by |)', 'synonyms');
-    if (parsed === null || errors.length > before) continue;
-    rows.push({
-      line: record.line,
+    if (parsed === null) return null;
+    return {
+      line,
       key: c.key,
       name: c.name,
       formula: c.formula,
@@ -101,7 +89,6 @@ export function parseSpeciesCsv(input: TextInput): ParseResult<SpeciesRow> {
       inchiKey: c.inchikey,
       smiles: c.smiles,
       notes: c.notes,
-    });
-  }
-  return { rows, errors };
+    };
+  });
 }

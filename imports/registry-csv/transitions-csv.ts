@@ -1,12 +1,13 @@
 import { z } from 'zod';
-import { readCsv, type ParseResult, type TextInput } from './csv-table';
+import type { ParseResult, TextInput } from './csv-table';
 import {
   cell,
   checkModification,
   checkReferences,
-  energyFields,
-  rowError,
-  validateCells,
+  firstLines,
+  readRows,
+  valueCells,
+  valueFields,
 } from './cells';
 import { speciesPhaseKey } from './formation-csv';
 import type { CrossReferences, TransitionRow } from './row-types';
@@ -37,15 +38,7 @@ const schema = z.object({
   to_phase: cell.phase,
   to_modification: cell.modification,
   temperature_k: cell.kelvin,
-  value: cell.decimal,
-  unit: cell.unit,
-  uncertainty: cell.positiveDecimal,
-  uncertainty_basis: cell.basis,
-  method: cell.method,
-  standard_pressure_pa: cell.pressure,
-  source: cell.required,
-  from_memory: cell.fromMemory,
-  notes: cell.optional,
+  ...valueCells,
 });
 
 /** Phase transitions in the heating direction: ΔtrsH of going from_phase → to_phase at T. */
@@ -53,49 +46,33 @@ export function parseTransitionsCsv(
   input: TextInput,
   refs: CrossReferences = {},
 ): ParseResult<TransitionRow> {
-  const { records, errors } = readCsv(input, FILE, TRANSITION_COLUMNS);
-  const rows: TransitionRow[] = [];
-  const lines = new Map<string, number>();
-  for (const record of records) {
-    const c = validateCells(schema, record, FILE, errors);
-    if (c === null) continue;
-    const before = errors.length;
-    const report = (message: string, column: string): void => {
-      rowError(errors, FILE, record.line, message, column);
-    };
+  const seenOn = firstLines();
+  return readRows(input, FILE, TRANSITION_COLUMNS, schema, (c, line, report): TransitionRow => {
     checkModification(c.from_phase, c.from_modification, 'from_modification', report);
     checkModification(c.to_phase, c.to_modification, 'to_modification', report);
     checkReferences(refs, c.species, c.source, report);
     const from = speciesPhaseKey(c.species, c.from_phase, c.from_modification);
     const to = speciesPhaseKey(c.species, c.to_phase, c.to_modification);
     if (from === to) report('a transition needs two different phases', 'to_phase');
-    const energy = energyFields(c, report);
+    const fields = valueFields(c, report);
     // On heating through an equilibrium transition ΔtrsH = T·ΔtrsS > 0.
-    if (energy.valueJPerMol.startsWith('-') || energy.valueJPerMol === '0')
+    if (fields.valueJPerMol.startsWith('-') || fields.valueJPerMol === '0')
       report(
         'ΔtrsH in the heating direction is positive (fusion cr → l, vaporization l → g)',
         'value',
       );
     const id = `${from} → ${to}`;
-    const earlier = lines.get(id);
+    const earlier = seenOn(id, line);
     if (earlier !== undefined) report(`${id} already on line ${earlier}`, 'species');
-    else lines.set(id, record.line);
-    if (errors.length > before) continue;
-    rows.push({
-      line: record.line,
+    return {
+      line,
       species: c.species,
       fromPhase: c.from_phase,
       fromModification: c.from_modification,
       toPhase: c.to_phase,
       toModification: c.to_modification,
       temperatureK: c.temperature_k,
-      ...energy,
-      method: c.method,
-      standardPressurePa: c.standard_pressure_pa,
-      source: c.source,
-      fromMemory: c.from_memory,
-      notes: c.notes,
-    });
-  }
-  return { rows, errors };
+      ...fields,
+    };
+  });
 }
