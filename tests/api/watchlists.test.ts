@@ -1,11 +1,11 @@
 import request from 'supertest';
-import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import { watchlistImpactsForRelease } from '../../server/src/modules/watchlists/watchlist-impacts';
 import {
   ImpactAnswer,
   WatchlistAnswer,
   WatchlistListAnswer,
 } from '../../server/src/modules/watchlists/watchlists-schemas';
+import { publishRevisedWater } from '../support/releases';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 /** ΔfH° of liquid water moves by this much (J/mol) from 2026.1 to the test's 2026.2. */
@@ -16,24 +16,7 @@ describe('impact reports and watchlists', () => {
   beforeAll(async () => {
     t = await createTestApp();
     // A second published release in which one value changed: liquid water's ΔfH°.
-    const releases = createReleasesService(t.db.db);
-    const editor = (await t.db.pool.query(`select id from users where login = 'demo-editor'`))
-      .rows[0] as { id: number };
-    await t.db.db.transaction(async (tx) => {
-      await tx.execute(`
-        with old as (
-          update revisions r set status = 'superseded', status_changed_at = now()
-          from species_phases sp join species s on s.id = sp.species_id
-          where sp.id = r.species_phase_id and s.key = 'water' and sp.phase = 'l'
-            and r.quantity = 'formation_enthalpy' and r.status = 'accepted'
-          returning r.*)
-        insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
-          uncertainty_basis, method, standard_pressure, source_id, status, supersedes_id)
-        select species_phase_id, kind, quantity, value + ${WATER_CHANGE}, uncertainty,
-          uncertainty_basis, method, standard_pressure, source_id, 'accepted', id from old`);
-      await releases.createDraftIn(tx, editor, '2026.2', 'Water revised (test)');
-      await releases.publishIn(tx, editor, '2026.2');
-    });
+    await publishRevisedWater(t, WATER_CHANGE, 'Water revised (test)');
   });
   afterAll(() => t.close());
 
