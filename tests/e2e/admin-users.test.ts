@@ -3,6 +3,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInFromHome,
   type BrowserSession,
 } from '../support/browser';
 
@@ -14,19 +15,8 @@ describe('admin changes a role in the browser', () => {
   afterAll(() => s.close());
 
   it('signs in through the provider chooser, changes a role, and the change survives a reload', async () => {
-    const { page, baseUrl } = s;
-    await page.goto(baseUrl);
-    await page
-      .getByRole('link', { name: /sign in/i })
-      .first()
-      .click();
-
-    // The local provider's chooser page, on its own origin.
-    await page.waitForURL(/\/login\/oauth\/authorize/);
-    await page.getByRole('link', { name: /demo-admin/ }).click();
-
-    await page.waitForURL(`${baseUrl}/`);
-    await page.getByText('Lena Sørensen').waitFor();
+    const { page } = s;
+    await signInFromHome(s, 'demo-admin', 'Lena Sørensen');
 
     await page.getByRole('link', { name: /admin/i }).first().click();
     await page.waitForURL(/\/admin\/users/);

@@ -3,6 +3,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInFromHome,
   type BrowserSession,
 } from '../support/browser';
 
@@ -14,19 +15,8 @@ describe('settings and the audit log in the browser', () => {
   afterAll(() => s.close());
 
   it('an editor turns e-mail off in Settings, then reads the audit of curated data', async () => {
-    const { page, baseUrl } = s;
-    await page.goto(baseUrl);
-    await page
-      .getByRole('link', { name: /sign in/i })
-      .first()
-      .click();
-    await page.waitForURL(/\/login\/oauth\/authorize/);
-    await page
-      .getByRole('link', { name: /demo-editor\b/ })
-      .first()
-      .click();
-    await page.waitForURL(`${baseUrl}/`);
-    await page.getByText('Helga Brandt').waitFor();
+    const { page } = s;
+    await signInFromHome(s, 'demo-editor', 'Helga Brandt');
 
     // Settings, from the account menu.
     await page.getByRole('button', { name: 'Account menu' }).click();

@@ -6,6 +6,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInTo,
   type BrowserSession,
 } from '../support/browser';
 
@@ -16,13 +17,6 @@ const sample = (name: string) => ({
   buffer: fs.readFileSync(path.join(PROJECT_ROOT, 'imports/samples', name)),
 });
 
-async function signInAs(s: BrowserSession, login: string, returnTo: string): Promise<void> {
-  await s.page.goto(
-    `${s.baseUrl}/auth/github?login=${login}&returnTo=${encodeURIComponent(returnTo)}`,
-  );
-  await s.page.waitForURL(`${s.baseUrl}${returnTo}`);
-}
-
 describe('a curator bulk-uploads a CSV', () => {
   let s: BrowserSession;
   beforeAll(async () => {
@@ -32,7 +26,7 @@ describe('a curator bulk-uploads a CSV', () => {
 
   it('sees a row error in the dry run, uploads the fixed file, submits and lands on the proposal', async () => {
     const { page, baseUrl } = s;
-    await signInAs(s, 'demo-curator', '/curation/proposals');
+    await signInTo(s, 'demo-curator', '/curation/proposals');
     await page.getByRole('link', { name: 'Bulk upload' }).click();
     await page.waitForURL(`${baseUrl}/proposals/upload`);
     await page.getByRole('heading', { name: 'Bulk upload' }).waitFor();
@@ -88,7 +82,7 @@ describe('bulk upload at phone width', () => {
 
   it('shows the dry run without pushing the page sideways', async () => {
     const { page } = s;
-    await signInAs(s, 'demo-curator', '/proposals/upload');
+    await signInTo(s, 'demo-curator', '/proposals/upload');
     await page
       .getByLabel('Choose a CSV or XML file')
       .setInputFiles(sample('kpw-demo-formation-errors.csv'));

@@ -4,6 +4,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInTo,
   type BrowserSession,
 } from '../support/browser';
 
@@ -14,13 +15,6 @@ describe('four eyes: an editor cannot decide their own proposal', () => {
   });
   afterAll(() => s.close());
 
-  const signInAs = async (login: string, returnTo: string) => {
-    const { page, baseUrl } = s;
-    await page.goto(
-      `${baseUrl}/auth/github?login=${login}&returnTo=${encodeURIComponent(returnTo)}`,
-    );
-    await page.waitForURL(`${baseUrl}${returnTo}`);
-  };
   const status = async (id: number) =>
     (await s.t.db.pool.query(`select status from proposals where id = $1`, [id])).rows[0].status;
 
@@ -28,7 +22,7 @@ describe('four eyes: an editor cannot decide their own proposal', () => {
     const { page, baseUrl } = s;
 
     // --- a second editor proposes, on a phone ---
-    await signInAs('demo-editor-2', '/curation/propose');
+    await signInTo(s, 'demo-editor-2', '/curation/propose');
     await page.getByRole('heading', { name: 'Propose' }).waitFor();
     await page.getByLabel('Rationale').fill('Propane re-evaluated by the demo team (demo data).');
     await page.getByRole('combobox', { name: 'Item 1 kind' }).click();
@@ -72,7 +66,7 @@ describe('four eyes: an editor cannot decide their own proposal', () => {
 
     // --- another editor asks for changes ---
     await page.setViewportSize(DESKTOP);
-    await signInAs('demo-editor', `/curation/proposals/${id}`);
+    await signInTo(s, 'demo-editor', `/curation/proposals/${id}`);
     await page.getByRole('radio', { name: 'Ask for changes' }).check();
     await page.getByLabel('Comment for the proposer').fill('Please state the uncertainty.');
     await page.getByRole('button', { name: 'Ask for changes', exact: true }).click();
@@ -80,7 +74,7 @@ describe('four eyes: an editor cannot decide their own proposal', () => {
     expect(await status(id)).toBe('changes_requested');
 
     // --- the proposer revises from their list, seeing the editor's comment ---
-    await signInAs('demo-editor-2', '/curation/proposals');
+    await signInTo(s, 'demo-editor-2', '/curation/proposals');
     await page.getByRole('heading', { name: 'My proposals' }).waitFor();
     const card = page.getByRole('listitem').filter({ hasText: `#${id}` });
     await card.getByText('Changes asked for').waitFor();

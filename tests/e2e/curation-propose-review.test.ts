@@ -4,6 +4,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInTo,
   type BrowserSession,
 } from '../support/browser';
 
@@ -29,19 +30,11 @@ describe('a curator proposes a value and an editor approves it', () => {
   });
   afterAll(() => s.close());
 
-  const signInAs = async (login: string, returnTo: string) => {
-    const { page, baseUrl } = s;
-    await page.goto(
-      `${baseUrl}/auth/github?login=${login}&returnTo=${encodeURIComponent(returnTo)}`,
-    );
-    await page.waitForURL(`${baseUrl}${returnTo}`);
-  };
-
   it('proposes with a BibTeX source and a PDF, then compares and approves', async () => {
     const { page, baseUrl } = s;
 
     // --- the curator builds the proposal ---
-    await signInAs('demo-curator', '/curation/propose');
+    await signInTo(s, 'demo-curator', '/curation/propose');
     await page.getByRole('heading', { name: 'Propose' }).waitFor();
     await page.getByLabel('Rationale').fill('Newer combustion run of the demo team (demo data).');
 
@@ -88,7 +81,7 @@ describe('a curator proposes a value and an editor approves it', () => {
     expect(stored.rows[0].status).toBe('submitted');
 
     // --- an editor finds it in the queue and compares ---
-    await signInAs('demo-editor', '/curation/review');
+    await signInTo(s, 'demo-editor', '/curation/review');
     await page.getByRole('heading', { name: 'Review' }).waitFor();
     await page.getByRole('link', { name: `#${id}`, exact: true }).click();
     await page.waitForURL(`${baseUrl}/curation/proposals/${id}`);

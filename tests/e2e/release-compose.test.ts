@@ -5,6 +5,7 @@ import {
   PHONE,
   screenshot,
   sidewaysOverflow,
+  signInTo,
   type BrowserSession,
 } from '../support/browser';
 
@@ -45,8 +46,7 @@ describe('an editor composes and publishes a release', () => {
 
   it('starts a draft, leaves a change out, publishes with confirmation and finds it in the list', async () => {
     const { page, baseUrl } = s;
-    await page.goto(`${baseUrl}/auth/github?login=demo-editor&returnTo=%2Freleases%2Fdrafts`);
-    await page.waitForURL(`${baseUrl}/releases/drafts`);
+    await signInTo(s, 'demo-editor', '/releases/drafts');
     await page.getByRole('heading', { name: 'Release drafts' }).waitFor();
 
     await page.getByLabel('Version').fill('2026.2');

@@ -1,4 +1,4 @@
-import { openBrowser, screenshot, type BrowserSession } from '../support/browser';
+import { openBrowser, screenshot, signInTo, type BrowserSession } from '../support/browser';
 
 // The fake DOI service's demo record (10.5555 is a prefix set aside for examples; demo data).
 const DEMO_DOI = '10.5555/kestrel.demo.2025.001';
@@ -11,11 +11,8 @@ describe('sources', () => {
   afterAll(() => s.close());
 
   it('a curator finds a starter source, then adds one by DOI and attaches a PDF to it', async () => {
-    const { page, baseUrl } = s;
-    await page.goto(
-      `${baseUrl}/auth/github?login=demo-curator&returnTo=${encodeURIComponent('/sources')}`,
-    );
-    await page.waitForURL(`${baseUrl}/sources`);
+    const { page } = s;
+    await signInTo(s, 'demo-curator', '/sources');
     await page.getByRole('heading', { name: 'Sources' }).waitFor();
 
     await page.getByLabel('Search sources').fill('CODATA');

@@ -83,7 +83,8 @@ export const sidewaysOverflow = (page: Page) =>
 
 /**
  * Signs in as a person does: the Sign in link, the local provider's chooser page (on its own
- * origin), then back on the home page once the top bar shows the user's name.
+ * origin), then back on the home page once the top bar shows the user's name. The chooser's entry
+ * is matched on login and name together, as `demo-editor` is a prefix of `demo-editor-2`.
  */
 export async function signInFromHome(s: BrowserSession, login: string, name: string) {
   const { page, baseUrl } = s;
@@ -93,7 +94,15 @@ export async function signInFromHome(s: BrowserSession, login: string, name: str
     .first()
     .click();
   await page.waitForURL(/\/login\/oauth\/authorize/);
-  await page.getByRole('link', { name: new RegExp(login) }).click();
+  await page.getByRole('link', { name: `${login} — ${name}` }).click();
   await page.waitForURL(`${baseUrl}/`);
   await page.getByText(name).waitFor();
+}
+
+/** Signs in through the app's sign-in route straight to `returnTo`, skipping the chooser page. */
+export async function signInTo(s: BrowserSession, login: string, returnTo: string) {
+  await s.page.goto(
+    `${s.baseUrl}/auth/github?login=${login}&returnTo=${encodeURIComponent(returnTo)}`,
+  );
+  await s.page.waitForURL(`${s.baseUrl}${returnTo}`);
 }
