@@ -1,10 +1,6 @@
-import { systemClock } from '../../server/src/adapters/clock';
-import { createSmtpMailer } from '../../server/src/adapters/mailer';
-import { createLogger } from '../../server/src/lib/logger';
-import { createOutboxWorker } from '../../server/src/modules/mail/outbox-worker';
 import { createProposalNotifier } from '../../server/src/modules/notifications/proposal-notifications';
 import type { EventUser, ProposalEvent } from '../../server/src/modules/proposals/proposal-events';
-import { receivedMail, sharedFakeSmtp, waitFor } from '../support/mail';
+import { receivedMail, sharedSmtpWorker, waitFor } from '../support/mail';
 import { createTestDatabase, type TestDatabase } from '../support/test-db';
 
 const PUBLIC_URL = 'https://thalpos.kestrel.example';
@@ -175,7 +171,6 @@ describe('proposal e-mail notifications', () => {
   });
 
   it('reaches the recipients through SMTP', async () => {
-    const { url, apiUrl } = sharedFakeSmtp();
     // A fresh address, so this run's message is told apart from others on the shared fake.
     const address = `priya.${nextProposal}@kestrel.example`;
     await db.pool.query("update users set email = $1 where login = 'demo-curator'", [address]);
@@ -188,13 +183,7 @@ describe('proposal e-mail notifications', () => {
       commentId: 4,
       createdRevisionIds: [],
     });
-    const mailer = createSmtpMailer({ url, from: 'Thalpos <no-reply@thalpos.invalid>' });
-    const worker = createOutboxWorker({
-      db: db.db,
-      mailer,
-      clock: systemClock,
-      logger: createLogger('silent'),
-    });
+    const { worker, apiUrl, close } = sharedSmtpWorker(db.db);
     try {
       await worker.runOnce();
       const [mail] = await waitFor(async () => {
@@ -205,7 +194,7 @@ describe('proposal e-mail notifications', () => {
       expect(mail.text).toContain('Helga Brandt rejected proposal');
       expect(mail.text).toContain('> The source does not support this value.');
     } finally {
-      mailer.close();
+      close();
     }
   });
 });

@@ -1,8 +1,4 @@
-import { systemClock } from '../../server/src/adapters/clock';
-import { createSmtpMailer } from '../../server/src/adapters/mailer';
-import { createLogger } from '../../server/src/lib/logger';
-import { createOutboxWorker } from '../../server/src/modules/mail/outbox-worker';
-import { receivedMail, sharedFakeSmtp, waitFor } from '../support/mail';
+import { receivedMail, sharedSmtpWorker, waitFor } from '../support/mail';
 import { as, sourceId, submitted, valueItem, type Curator } from '../support/proposals';
 import { createTestApp, type TestApp } from '../support/test-app';
 
@@ -58,14 +54,7 @@ describe('proposal events by e-mail, through the API', () => {
       ['demo-editor', 'proposal.decided'],
     ]);
 
-    const { url, apiUrl } = sharedFakeSmtp();
-    const mailer = createSmtpMailer({ url, from: 'Thalpos <no-reply@thalpos.invalid>' });
-    const worker = createOutboxWorker({
-      db: t.db.db,
-      mailer,
-      clock: systemClock,
-      logger: createLogger('silent'),
-    });
+    const { worker, apiUrl, close } = sharedSmtpWorker(t.db.db);
     try {
       while ((await worker.runOnce()).sent > 0);
       const mails = await waitFor(async () => {
@@ -81,7 +70,7 @@ describe('proposal events by e-mail, through the API', () => {
       expect(decision.text).toContain('> State the uncertainty basis, please.');
       expect(decision.text).toContain(`${PUBLIC_URL}/proposals/${id}`);
     } finally {
-      mailer.close();
+      close();
     }
   });
 

@@ -1,9 +1,5 @@
 import { sql } from 'drizzle-orm';
 import request from 'supertest';
-import { systemClock } from '../../server/src/adapters/clock';
-import { createSmtpMailer } from '../../server/src/adapters/mailer';
-import { createLogger } from '../../server/src/lib/logger';
-import { createOutboxWorker } from '../../server/src/modules/mail/outbox-worker';
 import { acceptFormationValueIn, retireRevisionIn } from '../../server/src/db/accepted-revisions';
 import {
   DraftAnswer,
@@ -14,7 +10,7 @@ import {
 import { ReleaseManifest } from '../../server/src/modules/releases/releases-schemas';
 import { ImpactAnswer } from '../../server/src/modules/watchlists/watchlists-schemas';
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
-import { receivedMail, sharedFakeSmtp, waitFor } from '../support/mail';
+import { receivedMail, sharedSmtpWorker, waitFor } from '../support/mail';
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 describe('release composer', () => {
@@ -566,14 +562,7 @@ describe('release composer', () => {
       expect(item.to.deltaH).toBeCloseTo(-285.0, 6);
       expect(item.to.uncertainty).toBeCloseTo(0.04, 6);
 
-      const { url, apiUrl } = sharedFakeSmtp();
-      const mailer = createSmtpMailer({ url, from: 'Thalpos <no-reply@thalpos.invalid>' });
-      const worker = createOutboxWorker({
-        db: t.db.db,
-        mailer,
-        clock: systemClock,
-        logger: createLogger('silent'),
-      });
+      const { worker, apiUrl, close } = sharedSmtpWorker(t.db.db);
       try {
         while ((await worker.runOnce()).sent > 0);
         const [mail] = await waitFor(async () => {
@@ -590,7 +579,7 @@ describe('release composer', () => {
         expect(mail!.text).toContain(`  change +${item.change.toFixed(2)} kJ/mol`);
         expect(mail!.text).toContain(`/releases/diff/${base}/2033.1`);
       } finally {
-        mailer.close();
+        close();
       }
     });
   });

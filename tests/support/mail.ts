@@ -1,4 +1,9 @@
+import { systemClock } from '../../server/src/adapters/clock';
+import { createSmtpMailer } from '../../server/src/adapters/mailer';
+import type { Database } from '../../server/src/db/client';
 import type { ReceivedMail } from '../../server/src/fakes/smtp-fake';
+import { createLogger } from '../../server/src/lib/logger';
+import { createOutboxWorker } from '../../server/src/modules/mail/outbox-worker';
 
 /**
  * Waits until `check` returns a value other than undefined/false, polling; fails only when the
@@ -22,6 +27,22 @@ export function sharedFakeSmtp(): { url: string; apiUrl: string } {
   if (!url || !apiUrl)
     throw new Error('FAKE_SMTP_URL is not set: run the tests through `npm test`');
   return { url, apiUrl };
+}
+
+/**
+ * The outbox worker of `db` sending through the shared fake SMTP server, for tests that follow a
+ * message all the way to the inbox; `close` it when done.
+ */
+export function sharedSmtpWorker(db: Database) {
+  const { url, apiUrl } = sharedFakeSmtp();
+  const mailer = createSmtpMailer({ url, from: 'Thalpos <no-reply@thalpos.invalid>' });
+  const worker = createOutboxWorker({
+    db,
+    mailer,
+    clock: systemClock,
+    logger: createLogger('silent'),
+  });
+  return { worker, apiUrl, close: () => mailer.close() };
 }
 
 /** Messages the fake SMTP server at `apiUrl` received, optionally only those to `address`. */
