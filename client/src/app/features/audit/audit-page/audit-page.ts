@@ -1,13 +1,5 @@
 import { DatePipe } from '@angular/common';
-import {
-  ChangeDetectionStrategy,
-  Component,
-  computed,
-  inject,
-  linkedSignal,
-  signal,
-} from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
@@ -28,16 +20,12 @@ import {
   MatRowDef,
   MatTable,
 } from '@angular/material/table';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import type { AuditEntryView } from '@contracts/audit/audit-schemas';
 
-import type { AuditEntryView, AuditPage } from '@contracts/audit/audit-schemas';
-
-import { readableMessage } from '../../../core/api-error';
+import { latestResponse } from '../../../shared/latest-response';
+import { TablePager } from '../../../shared/table-pager';
 import { AuditApi } from '../audit-api';
 import { auditRequest, formatState, type AuditFilterValue } from './audit-filter';
-
-type Outcome =
-  { state: 'loading' } | { state: 'ok'; page: AuditPage } | { state: 'error'; message: string };
 
 const EMPTY_FILTER: AuditFilterValue = {
   actor: '',
@@ -103,48 +91,30 @@ export class AuditLogPage {
 
   /** The filters last applied (the form applies on submit, not on every key). */
   private readonly applied = signal<AuditFilterValue>(EMPTY_FILTER);
-  protected readonly pageIndex = signal(0);
-  protected readonly pageSize = signal(25);
-  private readonly reloads = signal(0);
+  protected readonly pager = new TablePager();
   protected readonly expanded = signal<number | null>(null);
 
-  private readonly request = computed(() => {
-    this.reloads();
-    return auditRequest(this.applied(), this.pageIndex(), this.pageSize());
-  });
-
-  protected readonly outcome = toSignal(
-    toObservable(this.request).pipe(
-      switchMap((request) =>
-        this.api.list(request).pipe(
-          map((page): Outcome => ({ state: 'ok', page })),
-          catchError((error: unknown) =>
-            of<Outcome>({ state: 'error', message: readableMessage(error) }),
-          ),
-          startWith<Outcome>({ state: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { state: 'loading' } as Outcome },
+  private readonly request = computed(() =>
+    auditRequest(this.applied(), this.pager.pageIndex(), this.pager.pageSize()),
   );
 
   /** The last page shown stays on screen while the next one loads (or fails). */
-  protected readonly page = linkedSignal<Outcome, AuditPage | null>({
-    source: this.outcome,
-    computation: (o, previous) => (o.state === 'ok' ? o.page : (previous?.value ?? null)),
+  private readonly outcome = latestResponse({
+    request: this.request,
+    load: (request) => this.api.list(request),
+    keepOnFailure: true,
   });
+  protected readonly page = this.outcome.last;
   protected readonly entries = computed(() => this.page()?.entries ?? []);
-  protected readonly loading = computed(() => this.outcome().state === 'loading');
-  protected readonly error = computed(() => {
-    const o = this.outcome();
-    return o.state === 'error' ? o.message : null;
-  });
+  protected readonly loading = this.outcome.loading;
+  protected readonly error = this.outcome.failure;
 
   protected apply(): void {
     this.applied.set(this.filters.getRawValue());
-    this.pageIndex.set(0);
+    this.pager.firstPage();
     this.expanded.set(null);
-    this.reloads.update((n) => n + 1);
+    // The same filters applied again ask again.
+    this.outcome.reload();
   }
 
   protected clear(): void {
@@ -153,12 +123,11 @@ export class AuditLogPage {
   }
 
   protected retry(): void {
-    this.reloads.update((n) => n + 1);
+    this.outcome.reload();
   }
 
   protected onPage(event: PageEvent): void {
-    this.pageSize.set(event.pageSize);
-    this.pageIndex.set(event.pageIndex);
+    this.pager.turnPage(event);
     this.expanded.set(null);
   }
 

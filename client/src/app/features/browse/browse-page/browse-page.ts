@@ -1,21 +1,13 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  computed,
-  effect,
-  inject,
-  linkedSignal,
-  signal,
-} from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormField, MatHint, MatLabel, MatPrefix } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
 import { MatInput } from '@angular/material/input';
-import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatOption, MatSelect } from '@angular/material/select';
-import { MatSort, MatSortHeader, type Sort } from '@angular/material/sort';
+import { MatSort, MatSortHeader } from '@angular/material/sort';
 import {
   MatCell,
   MatCellDef,
@@ -42,12 +34,13 @@ import {
 } from 'rxjs';
 
 import type { SearchAnswer } from '@contracts/search/search-schemas';
-import type { ReleaseSpeciesPage } from '@contracts/species/species-schemas';
 import { readableMessage } from '../../../core/api-error';
 import { LATEST, ReleaseContext } from '../../../core/release-context';
 import { ChemText } from '../../../shared/chem-text';
+import { latestResponse } from '../../../shared/latest-response';
 import { phaseName } from '../../../shared/phase-name';
 import { ReleasePicker } from '../../../shared/release-picker/release-picker';
+import { TablePager } from '../../../shared/table-pager';
 import { kjFromJoulesText, kjUncertainty } from '../../species/species-format';
 import { BrowseApi, type SpeciesTableRequest } from '../browse-api';
 
@@ -61,11 +54,6 @@ type Search =
   | { readonly state: 'searching'; readonly q: string }
   | { readonly state: 'found'; readonly q: string; readonly answer: SearchAnswer }
   | { readonly state: 'failed'; readonly q: string; readonly message: string };
-
-type Table =
-  | { readonly state: 'loading' }
-  | { readonly state: 'loaded'; readonly page: ReleaseSpeciesPage }
-  | { readonly state: 'failed'; readonly message: string };
 
 /** Browse: search the registry as you type, and page through a release's species table. */
 @Component({
@@ -141,46 +129,27 @@ export class BrowsePage {
     { initialValue: { state: 'idle' } as Search },
   );
 
-  protected readonly sort = signal<Sort>({ active: 'name', direction: 'asc' });
-  protected readonly pageIndex = signal(0);
-  protected readonly pageSize = signal(25);
+  protected readonly pager = new TablePager({ sort: { active: 'name', direction: 'asc' } });
   private readonly phaseFilter = toSignal(this.phase.valueChanges, { initialValue: '' });
 
   private readonly request = computed<SpeciesTableRequest>(() => {
-    const sort = this.sort();
+    const sort = this.pager.requestedSort();
     return {
       release: this.context.pinned(),
-      page: this.pageIndex() + 1,
-      pageSize: this.pageSize(),
+      page: this.pager.pageIndex() + 1,
+      pageSize: this.pager.pageSize(),
       phase: this.phaseFilter() || null,
-      sort: sort.direction === '' ? 'name' : (sort.active as SpeciesTableRequest['sort']),
-      order: sort.direction === 'desc' ? 'desc' : 'asc',
+      sort: sort.active as SpeciesTableRequest['sort'],
+      order: sort.direction,
     };
   });
 
-  protected readonly table = toSignal(
-    toObservable(this.request).pipe(
-      switchMap((request) =>
-        this.api.speciesPage(request).pipe(
-          map((page): Table => ({ state: 'loaded', page })),
-          catchError((error: unknown) =>
-            of<Table>({ state: 'failed', message: readableMessage(error) }),
-          ),
-          startWith<Table>({ state: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { state: 'loading' } as Table },
-  );
-
-  /** The last page that arrived, kept on screen while the next one loads. */
-  private readonly lastPage = linkedSignal<Table, ReleaseSpeciesPage | null>({
-    source: this.table,
-    computation: (table, previous) => {
-      if (table.state === 'loaded') return table.page;
-      return table.state === 'failed' ? null : (previous?.value ?? null);
-    },
+  /** The last page that arrived stays on screen while the next one loads. */
+  private readonly table = latestResponse({
+    request: this.request,
+    load: (request) => this.api.speciesPage(request),
   });
+  private readonly lastPage = this.table.last;
   protected readonly rows = computed(() =>
     (this.lastPage()?.items ?? []).map((item) => ({
       ...item,
@@ -196,11 +165,8 @@ export class BrowsePage {
     return pinned === LATEST ? null : pinned;
   });
   protected readonly total = computed(() => this.lastPage()?.total ?? 0);
-  protected readonly loading = computed(() => this.table().state === 'loading');
-  protected readonly failure = computed(() => {
-    const table = this.table();
-    return table.state === 'failed' ? table.message : null;
-  });
+  protected readonly loading = this.table.loading;
+  protected readonly failure = this.table.failure;
 
   constructor() {
     // The picker pins the release in the URL; a link or Back changes the picker in turn.
@@ -210,18 +176,8 @@ export class BrowsePage {
     effect(() => {
       const pinned = this.context.pinned();
       if (this.release.value !== pinned) this.release.setValue(pinned, { emitEvent: false });
-      this.pageIndex.set(0);
+      this.pager.firstPage();
     });
-    this.phase.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pageIndex.set(0));
-  }
-
-  protected sortBy(sort: Sort): void {
-    this.sort.set(sort);
-    this.pageIndex.set(0);
-  }
-
-  protected turnPage(event: PageEvent): void {
-    this.pageSize.set(event.pageSize);
-    this.pageIndex.set(event.pageIndex);
+    this.phase.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pager.firstPage());
   }
 }

@@ -1,14 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatCheckbox } from '@angular/material/checkbox';
 import { MatOption } from '@angular/material/core';
 import { MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatIcon } from '@angular/material/icon';
-import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { MatPaginator } from '@angular/material/paginator';
 import { MatProgressBar } from '@angular/material/progress-bar';
 import { MatSelect } from '@angular/material/select';
-import { MatSort, MatSortHeader, type Sort } from '@angular/material/sort';
+import { MatSort, MatSortHeader } from '@angular/material/sort';
 import {
   MatCell,
   MatCellDef,
@@ -23,18 +23,13 @@ import {
   MatTable,
 } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
-import type { ProposalList, ProposalStatus } from '@contracts/proposals/proposals-schemas';
-import { readableMessage } from '../../../core/api-error';
+import type { ProposalStatus } from '@contracts/proposals/proposals-schemas';
+import { latestResponse } from '../../../shared/latest-response';
+import { TablePager } from '../../../shared/table-pager';
 import { CurationApi, type ProposalListRequest } from '../curation-api';
 import { KIND_WORDS, STATUS_WORDS, when } from '../proposal-status';
 import { StatusChip } from '../status-chip';
-
-type Load =
-  | { readonly state: 'loading' }
-  | { readonly state: 'loaded'; readonly list: ProposalList }
-  | { readonly state: 'failed'; readonly message: string };
 
 /** Which proposals the queue shows; "open" is everything still waiting on someone. */
 const QUEUE_FILTERS = [
@@ -95,87 +90,49 @@ export class ReviewQueue {
   protected readonly show = new FormControl<QueueFilter>('submitted', { nonNullable: true });
   protected readonly staleOnly = new FormControl(false, { nonNullable: true });
 
-  protected readonly sort = signal<Sort>({ active: 'submittedAt', direction: 'asc' });
-  protected readonly pageIndex = signal(0);
-  protected readonly pageSize = signal(25);
+  protected readonly pager = new TablePager({ sort: { active: 'submittedAt', direction: 'asc' } });
   private readonly showValue = toSignal(this.show.valueChanges, { initialValue: this.show.value });
   private readonly staleValue = toSignal(this.staleOnly.valueChanges, { initialValue: false });
 
   private readonly request = computed<ProposalListRequest>(() => {
-    const sort = this.sort();
+    const sort = this.pager.requestedSort();
     const filter = QUEUE_FILTERS.find((f) => f.value === this.showValue()) ?? QUEUE_FILTERS[0];
     const statuses: ProposalStatus[] =
       filter.statuses.length > 0
         ? [...filter.statuses]
         : ['submitted', 'changes_requested', 'approved', 'rejected', 'withdrawn'];
-    const active = (SORTABLE as readonly string[]).includes(sort.active)
-      ? (sort.active as ProposalListRequest['sort'])
-      : 'submittedAt';
     return {
       status: statuses,
       stale: this.staleValue() || undefined,
-      sort: sort.direction === '' ? 'submittedAt' : active,
-      order: sort.direction === 'desc' ? 'desc' : 'asc',
-      offset: this.pageIndex() * this.pageSize(),
-      limit: this.pageSize(),
+      sort: (SORTABLE as readonly string[]).includes(sort.active)
+        ? (sort.active as ProposalListRequest['sort'])
+        : 'submittedAt',
+      order: sort.direction,
+      offset: this.pager.offset(),
+      limit: this.pager.pageSize(),
     };
   });
 
-  private readonly load = toSignal(
-    toObservable(this.request).pipe(
-      switchMap((request) =>
-        this.api.list(request).pipe(
-          map((list): Load => ({ state: 'loaded', list })),
-          catchError((error: unknown) =>
-            of<Load>({ state: 'failed', message: readableMessage(error) }),
-          ),
-          startWith<Load>({ state: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { state: 'loading' } as Load },
-  );
-
-  protected readonly loading = computed(() => this.load().state === 'loading');
-  protected readonly failure = computed(() => {
-    const load = this.load();
-    return load.state === 'failed' ? load.message : null;
+  /** The last list that arrived stays on screen while the next one loads. */
+  private readonly load = latestResponse({
+    request: this.request,
+    load: (request) => this.api.list(request),
   });
-  private readonly lastList = signal<ProposalList | null>(null);
-  protected readonly rows = computed(() => {
-    const load = this.load();
-    const list = load.state === 'loaded' ? load.list : this.lastList();
-    return (list?.proposals ?? []).map((p) => ({
+  protected readonly loading = this.load.loading;
+  protected readonly failure = this.load.failure;
+  protected readonly rows = computed(() =>
+    (this.load.last()?.proposals ?? []).map((p) => ({
       ...p,
       about: [
         [...new Set(p.kinds)].map((k) => KIND_WORDS[k]).join(', '),
         ...(p.species.length > 0 ? [p.species.join(', ')] : []),
       ].join(' · '),
-    }));
-  });
-  protected readonly total = computed(() => {
-    const load = this.load();
-    return load.state === 'loaded' ? load.list.total : (this.lastList()?.total ?? 0);
-  });
+    })),
+  );
+  protected readonly total = computed(() => this.load.last()?.total ?? 0);
 
   constructor() {
-    toObservable(this.load)
-      .pipe(takeUntilDestroyed())
-      .subscribe((load) => {
-        if (load.state === 'loaded') this.lastList.set(load.list);
-        if (load.state === 'failed') this.lastList.set(null);
-      });
-    this.show.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pageIndex.set(0));
-    this.staleOnly.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pageIndex.set(0));
-  }
-
-  protected sortBy(sort: Sort): void {
-    this.sort.set(sort);
-    this.pageIndex.set(0);
-  }
-
-  protected turnPage(event: PageEvent): void {
-    this.pageSize.set(event.pageSize);
-    this.pageIndex.set(event.pageIndex);
+    this.show.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pager.firstPage());
+    this.staleOnly.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.pager.firstPage());
   }
 }

@@ -7,7 +7,7 @@ import {
   input,
   viewChild,
 } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatFormField, MatLabel, MatPrefix } from '@angular/material/form-field';
@@ -32,12 +32,11 @@ import {
   MatTableDataSource,
 } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
+import { map, startWith, switchMap } from 'rxjs';
 
-import type { ReleaseDiff } from '@contracts/releases/releases-schemas';
-import { readableMessage } from '../../../core/api-error';
 import { ReleaseContext } from '../../../core/release-context';
 import { ChemText } from '../../../shared/chem-text';
+import { latestResponse } from '../../../shared/latest-response';
 import { ReleasesApi } from '../releases-api';
 import {
   diffSortValue,
@@ -46,12 +45,6 @@ import {
   type DiffFilter,
   type DiffViewRow,
 } from './diff-rows';
-
-type Loaded =
-  | { readonly state: 'idle' }
-  | { readonly state: 'loading' }
-  | { readonly state: 'loaded'; readonly diff: ReleaseDiff }
-  | { readonly state: 'failed'; readonly message: string };
 
 /** Compare two releases: every value added, removed or changed, filterable and sortable. */
 @Component({
@@ -120,22 +113,11 @@ export class DiffPage {
     return from && to ? { from, to } : null;
   });
 
-  protected readonly loaded = toSignal(
-    toObservable(this.pair).pipe(
-      switchMap((pair) =>
-        !pair
-          ? of<Loaded>({ state: 'idle' })
-          : this.api.diff(pair.from, pair.to).pipe(
-              map((diff): Loaded => ({ state: 'loaded', diff })),
-              catchError((error: unknown) =>
-                of<Loaded>({ state: 'failed', message: readableMessage(error) }),
-              ),
-              startWith<Loaded>({ state: 'loading' }),
-            ),
-      ),
-    ),
-    { initialValue: { state: 'idle' } as Loaded },
-  );
+  /** Idle until the URL names both releases. */
+  protected readonly loaded = latestResponse({
+    request: this.pair,
+    load: (pair) => this.api.diff(pair.from, pair.to),
+  }).state;
 
   /** A version from the URL that is not in the list, kept selectable as written. */
   protected readonly unlisted = computed(() => {
@@ -147,7 +129,7 @@ export class DiffPage {
 
   protected readonly diff = computed(() => {
     const loaded = this.loaded();
-    return loaded.state === 'loaded' ? loaded.diff : null;
+    return loaded.state === 'loaded' ? loaded.value : null;
   });
   protected readonly csvUrl = computed(() => {
     const pair = this.pair();

@@ -1,12 +1,5 @@
-import {
-  ChangeDetectionStrategy,
-  Component,
-  computed,
-  input,
-  linkedSignal,
-  signal,
-} from '@angular/core';
-import { MatPaginator, type PageEvent } from '@angular/material/paginator';
+import { ChangeDetectionStrategy, Component, computed, input, linkedSignal } from '@angular/core';
+import { MatPaginator } from '@angular/material/paginator';
 import { MatSlideToggle } from '@angular/material/slide-toggle';
 import {
   MatCell,
@@ -22,6 +15,7 @@ import {
 } from '@angular/material/table';
 
 import type { PreviewRow, UploadPreview as Preview } from '@contracts/uploads/uploads-schemas';
+import { TablePager } from '../../../../shared/table-pager';
 import { LAYOUT_WORDS, rowAction, rowSummary } from '../upload-words';
 
 /**
@@ -60,26 +54,20 @@ export class UploadPreview {
   protected readonly onlyErrors = linkedSignal(
     () => this.preview().errorRowCount > 0 && this.preview().rowCount > 10,
   );
-  protected readonly pageIndex = linkedSignal({ source: this.preview, computation: () => 0 });
-  protected readonly pageSize = signal(25);
+  protected readonly pager = new TablePager({ restartOn: this.preview });
 
   protected readonly shown = computed(() => {
     const rows = this.preview().rows;
     return this.onlyErrors() ? rows.filter((r) => r.errors.length > 0) : rows;
   });
   protected readonly page = computed(() => {
-    const start = this.pageIndex() * this.pageSize();
-    return this.shown().slice(start, start + this.pageSize());
+    const start = this.pager.offset();
+    return this.shown().slice(start, start + this.pager.pageSize());
   });
 
   protected toggleErrors(only: boolean): void {
     this.onlyErrors.set(only);
-    this.pageIndex.set(0);
-  }
-
-  protected turnPage(event: PageEvent): void {
-    this.pageSize.set(event.pageSize);
-    this.pageIndex.set(event.pageIndex);
+    this.pager.firstPage();
   }
 
   protected typeWord(row: PreviewRow): string {
