@@ -6,6 +6,7 @@ import {
   signInFromHome,
   type BrowserSession,
 } from '../support/browser';
+import { waitFor } from '../support/mail';
 
 describe('settings and the audit log in the browser', () => {
   let s: BrowserSession;
@@ -55,10 +56,12 @@ describe('settings and the audit log in the browser', () => {
     await page.getByRole('combobox', { name: 'Record type' }).click();
     await page.getByRole('option', { name: 'release', exact: true }).click();
     await page.getByRole('button', { name: /Apply filters/ }).click();
-    await table.getByText('release.published').first().waitFor();
-    const actions = await table.locator('td.mat-column-action').allTextContents();
-    expect(actions.length).toBeGreaterThan(0);
-    expect(actions.every((a) => a.trim().startsWith('release.'))).toBe(true);
+    // The previous rows stay on screen while the filtered page loads: wait for it to replace them.
+    const actions = await waitFor(async () => {
+      const shown = await table.locator('td.mat-column-action').allTextContents();
+      return shown.length > 0 && shown.every((a) => a.trim().startsWith('release.')) && shown;
+    });
+    expect(actions.map((a) => a.trim())).toContain('release.published');
 
     await table
       .getByRole('button', { name: /^Before and after of entry/ })

@@ -87,7 +87,7 @@ describe('bulk upload at phone width', () => {
       .getByLabel('Choose a CSV or XML file')
       .setInputFiles(sample('kpw-demo-formation-errors.csv'));
     await page.getByText('6 rows have errors').waitFor();
-    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(1);
+    expect(await sidewaysOverflow(page, 1)).toBeLessThanOrEqual(1);
     await screenshot(page, 'bulk-upload-phone');
     expect(s.problems).toEqual([]);
   });

@@ -77,9 +77,19 @@ export async function openBrowser(
 export const screenshot = (page: Page, name: string) =>
   page.screenshot({ path: path.join(ARTIFACTS_DIR, `${name}.png`), fullPage: true });
 
-/** How far the page sticks out sideways beyond the viewport (0 when it fits). */
-export const sidewaysOverflow = (page: Page) =>
-  page.evaluate<number>('document.documentElement.scrollWidth - window.innerWidth');
+const OVERFLOW = 'document.documentElement.scrollWidth - window.innerWidth';
+
+/**
+ * How far the page sticks out sideways beyond the viewport (0 when it fits). Layout settles
+ * after a resize (charts redraw from their resize observers), so it first waits a while for the
+ * page to fit within `allowed`, and then reports what it measures for the test to assert.
+ */
+export async function sidewaysOverflow(page: Page, allowed = 0): Promise<number> {
+  await page
+    .waitForFunction(`${OVERFLOW} <= ${allowed}`, undefined, { timeout: 30_000 })
+    .catch(() => undefined);
+  return page.evaluate<number>(OVERFLOW);
+}
 
 /**
  * Signs in as a person does: the Sign in link, the local provider's chooser page (on its own
