@@ -67,4 +67,24 @@ describe('Browse and Species in the browser', () => {
 
     expect(s.problems).toEqual([]);
   });
+
+  it('shows each row’s phase and value at phone width without scrolling sideways', async () => {
+    const { page, baseUrl } = s;
+    await page.setViewportSize(PHONE);
+    await page.goto(`${baseUrl}/browse`);
+    const table = page.getByRole('table', { name: 'Species' });
+    await table.getByRole('row').nth(1).waitFor();
+    await expect(
+      table
+        .getByRole('columnheader')
+        .allTextContents()
+        .then((h) => h.map((x) => x.trim())),
+    ).resolves.toEqual(['Name', 'Phase', 'ΔfH° (kJ/mol)', '±']);
+    expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    // The value's cell lies inside the screen, not in a part scrolled out of view.
+    const value = await table.getByRole('row').nth(1).getByRole('cell').nth(2).boundingBox();
+    expect(value!.x + value!.width).toBeLessThanOrEqual(PHONE.width);
+    await screenshot(page, 'browse-phone');
+    expect(s.problems).toEqual([]);
+  });
 });

@@ -1,3 +1,4 @@
+import { BreakpointObserver, Breakpoints } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
@@ -55,6 +56,11 @@ type Search =
   | { readonly state: 'found'; readonly q: string; readonly answer: SearchAnswer }
   | { readonly state: 'failed'; readonly q: string; readonly message: string };
 
+const COLUMNS = ['name', 'formula', 'phase', 'deltaFH', 'uncertainty', 'source'];
+// On a phone, what fits its width: the name, the phase that tells rows apart, and the value. The
+// formula and source are one tap away, on the species page.
+const PHONE_COLUMNS = ['name', 'phase', 'deltaFH', 'uncertainty'];
+
 /** Browse: search the registry as you type, and page through a release's species table. */
 @Component({
   selector: 'thalpos-browse-page',
@@ -97,7 +103,12 @@ export class BrowsePage {
 
   protected readonly phases = PHASES;
   protected readonly phaseName = phaseName;
-  protected readonly columns = ['name', 'formula', 'phase', 'deltaFH', 'uncertainty', 'source'];
+  protected readonly columns = toSignal(
+    inject(BreakpointObserver)
+      .observe(Breakpoints.XSmall)
+      .pipe(map((state) => (state.matches ? PHONE_COLUMNS : COLUMNS))),
+    { initialValue: COLUMNS },
+  );
 
   protected readonly query = new FormControl('', { nonNullable: true });
   protected readonly release = new FormControl(this.context.pinned(), { nonNullable: true });

@@ -105,10 +105,21 @@ const PHASE_COLOURS = ['#c2572b', '#366570', '#71594b', '#832700', '#4f7e8a'];
       font-variant-numeric: tabular-nums;
       white-space: nowrap;
     }
+    @media (max-width: 599.98px) {
+      th,
+      td {
+        padding: 6px 4px;
+      }
+      th.numeric {
+        white-space: normal;
+      }
+    }
     .sub {
       display: block;
       font: var(--mat-sys-body-small);
       color: var(--mat-sys-on-surface-variant);
+      // The basis under a number may wrap, so the table fits a phone's width.
+      white-space: normal;
     }
     .none {
       margin: 0;
