@@ -88,6 +88,12 @@ describe('bulk upload at phone width', () => {
       .setInputFiles(sample('kpw-demo-formation-errors.csv'));
     await page.getByText('6 rows have errors').waitFor();
     expect(await sidewaysOverflow(page, 1)).toBeLessThanOrEqual(1);
+    // Each row's problems wrap inside its card instead of running out of view.
+    const problems = await page
+      .locator('ul.problems li')
+      .evaluateAll((items) => items.map((li) => li.getBoundingClientRect().right));
+    expect(problems.length).toBeGreaterThan(0);
+    for (const right of problems) expect(right).toBeLessThanOrEqual(PHONE.width);
     await screenshot(page, 'bulk-upload-phone');
     expect(s.problems).toEqual([]);
   });
