@@ -1,6 +1,7 @@
 import { parse as parseCsv } from 'csv-parse/sync';
 import { XMLParser } from 'fast-xml-parser';
 import request from 'supertest';
+import { unguardCsvText } from '../../server/src/lib/csv-text';
 import { IMMUTABLE_CACHE } from '../../server/src/modules/releases/release-http-cache';
 import { ReleaseDiff, ReleaseDiffRow } from '../../server/src/modules/releases/releases-schemas';
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
@@ -17,6 +18,8 @@ jest.setTimeout(60_000);
 const NEW = '2026.8';
 const DEMO_CITATION =
   'Kestrel Process Works demo data: "bench" <calorimetry> & co\'s notes\r\nsecond line';
+/** The added species' name begins as a spreadsheet formula would: CSV guards it, JSON does not. */
+const ADDED_NAME = '=Kestrel demo oxide';
 
 describe('release diffs', () => {
   let t: TestApp;
@@ -110,8 +113,9 @@ describe('release diffs', () => {
     );
     const species = (
       await one(
-        `insert into species (key, name, formula) values ('kestrel-demo-oxide', 'Kestrel demo oxide', 'KeO')
+        `insert into species (key, name, formula) values ('kestrel-demo-oxide', $1, 'KeO')
          returning id`,
+        [ADDED_NAME],
       )
     ).id;
     const phase = (
@@ -191,7 +195,7 @@ describe('release diffs', () => {
     });
     expect(row('kestrel-demo-oxide', 'formation_enthalpy')).toMatchObject({
       change: 'added',
-      speciesName: 'Kestrel demo oxide',
+      speciesName: ADDED_NAME,
       formula: 'KeO',
       phase: 'cr',
       oldRevisionId: null,
@@ -243,9 +247,28 @@ describe('release diffs', () => {
       .expect(304);
 
     const keys = Object.keys(ReleaseDiffRow.shape);
-    const parsed = parseCsv(csv.text, { columns: true }) as Record<string, string>[];
+    const raw = parseCsv(csv.text, { columns: true }) as Record<string, string>[];
     const snake = (k: string) => k.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
-    expect(Object.keys(parsed[0]!)).toEqual(keys.map(snake));
+    expect(Object.keys(raw[0]!)).toEqual(keys.map(snake));
+    const added = raw.find((r) => r.species_key === 'kestrel-demo-oxide');
+    expect(added).toMatchObject({ species_name: `'${ADDED_NAME}`, new_value: '-123456.7' });
+    // Text cells are read without the guard's apostrophe; numbers (a leading '-' is a sign) as sent.
+    const numbers = new Set([
+      'old_revision_id',
+      'new_revision_id',
+      'old_value',
+      'new_value',
+      'old_uncertainty',
+      'new_uncertainty',
+      'difference_kj_per_mol',
+      'combined_uncertainty_kj_per_mol',
+      'difference_in_uncertainties',
+    ]);
+    const parsed = raw.map((r) =>
+      Object.fromEntries(
+        Object.entries(r).map(([k, v]) => [k, numbers.has(k) ? v : unguardCsvText(v)]),
+      ),
+    );
     const asText = json.rows.map((r) =>
       Object.fromEntries(
         keys.map((k) => {

@@ -4,12 +4,14 @@ import { parse as parseCsv } from 'csv-parse/sync';
 import { XMLParser } from 'fast-xml-parser';
 import request from 'supertest';
 import { createApp } from '../../server/src/app';
+import { unguardCsvText } from '../../server/src/lib/csv-text';
 import { createLogger } from '../../server/src/lib/logger';
 import { IMMUTABLE_CACHE } from '../../server/src/modules/releases/release-http-cache';
 import {
   ReleaseExport,
   ReleaseManifestWithExports,
 } from '../../server/src/modules/releases/releases-schemas';
+import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 // Cloning a database and reading whole releases takes a while on a busy machine: wait, never fail for it.
@@ -65,6 +67,26 @@ function flatFromItem(section: string, item: Record<string, unknown>, range?: Fl
     source_doi: s(source.doi),
   };
 }
+
+/** CSV columns of numbers: a leading '-' is their sign. Every other column is guarded text. */
+const NUMBER_COLUMNS = new Set([
+  'value_j_per_mol',
+  'uncertainty_j_per_mol',
+  'temperature_k',
+  'range_index',
+  't_min_k',
+  't_max_k',
+  ...Array.from({ length: COEFFS }, (_, i) => `c${i + 1}`),
+  'revision_id',
+]);
+
+/** The CSV's rows with the text a spreadsheet-formula guard prefixed given back, as JSON has it. */
+const rowsFromCsv = (csv: Buffer): Flat[] =>
+  (parseCsv(csv, { columns: true }) as Flat[]).map((row) =>
+    Object.fromEntries(
+      Object.entries(row).map(([k, v]) => [k, NUMBER_COLUMNS.has(k) ? v : unguardCsvText(v)]),
+    ),
+  );
 
 const SECTIONS = [
   ['formation_enthalpy', 'formationEnthalpies', 'formationEnthalpy'],
@@ -232,7 +254,7 @@ describe('release exports', () => {
   });
 
   it('reads back to the same rows from CSV, JSON and XML, and those are the rows the release pins', async () => {
-    const csvRows = parseCsv(files.csv!, { columns: true }) as Flat[];
+    const csvRows = rowsFromCsv(files.csv!);
     const jsonDoc = JSON.parse(files.json!.toString('utf8'));
     const xml = files.xml!.toString('utf8');
     expect(xml.startsWith('<?xml version="1.0" encoding="UTF-8"?>\n<releaseExport ')).toBe(true);
@@ -274,5 +296,72 @@ describe('release exports', () => {
     const keys = csvRows.map((r) => `${order.indexOf(r.section!)}|${r.species_key}`);
     const sorted = [...keys].sort((a, b) => Buffer.compare(Buffer.from(a), Buffer.from(b)));
     expect(keys).toEqual(sorted);
+  });
+
+  it('guards CSV text cells that would run as spreadsheet formulas; JSON and XML keep the text', async () => {
+    // Demo data: a species, method and citation that a spreadsheet would take for formulas.
+    const name = '=HYPERLINK("https://example.invalid","Kestrel demo oxide")';
+    const citation = '@Kestrel Process Works demo note';
+    const one = async (text: string, params: unknown[] = []) =>
+      (await t.db.pool.query(text, params)).rows[0];
+    const editor = (await one(`select id from users where login = 'demo-editor'`)).id as number;
+    const source = (
+      await one(`insert into sources (csl, citation) values ('{}', $1) returning id`, [citation])
+    ).id;
+    const species = (
+      await one(
+        `insert into species (key, name, formula) values ('kestrel-formula-oxide', $1, 'KeO2')
+         returning id`,
+        [name],
+      )
+    ).id;
+    const phase = (
+      await one(`insert into species_phases (species_id, phase) values ($1, 'cr') returning id`, [
+        species,
+      ])
+    ).id;
+    await t.db.pool.query(
+      `insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
+         uncertainty_basis, method, source_id, status)
+       values ($1, 'formation_enthalpy', 'formation_enthalpy', -123456.7, 800, 'expanded_k2',
+               '-demo_estimate', $2, 'accepted')`,
+      [phase, source],
+    );
+    const releases = createReleasesService(t.db.db);
+    await t.db.db.transaction(async (tx) => {
+      await releases.createDraftIn(tx, { id: editor }, '2026.7', 'Demo formula-guard release');
+      await releases.publishIn(tx, { id: editor }, '2026.7');
+    });
+    const got: Record<string, Buffer> = {};
+    for (const f of ['csv', 'json', 'xml']) {
+      got[f] = (await bytes(request(t.app).get(`/api/v1/releases/2026.7/export.${f}`))).body;
+    }
+
+    const raw = (parseCsv(got.csv!, { columns: true }) as Flat[]).find(
+      (r) => r.species_key === 'kestrel-formula-oxide',
+    );
+    expect(raw).toMatchObject({
+      species_name: `'${name}`,
+      method: "'-demo_estimate",
+      source_citation: `'${citation}`,
+      value_j_per_mol: '-123456.7',
+      uncertainty_j_per_mol: '800',
+    });
+    // Negative numbers elsewhere in the release keep their sign unguarded.
+    expect(got.csv!.toString('utf8')).toMatch(/,-\d/);
+    expect(got.csv!.toString('utf8')).not.toMatch(/,'-\d/);
+
+    const jsonDoc = JSON.parse(got.json!.toString('utf8'));
+    const item = (jsonDoc.formationEnthalpies as Record<string, unknown>[]).find(
+      (i) => i.speciesKey === 'kestrel-formula-oxide',
+    );
+    expect(item).toMatchObject({
+      speciesName: name,
+      method: '-demo_estimate',
+      source: { citation },
+    });
+    const csvRows = rowsFromCsv(got.csv!);
+    expect(flatFromDocument(jsonDoc)).toEqual(csvRows);
+    expect(flatFromDocument(documentFromXml(got.xml!.toString('utf8')))).toEqual(csvRows);
   });
 });

@@ -115,4 +115,36 @@ describe('export writers', () => {
       'formation_enthalpy,water,Water,H2O,l,,formation_enthalpy,-285830,40,standard,evaluated,1 bar,,,,,,,,,,,,,,,,1,"Demo source, ""quoted"", with a comma",',
     );
   });
+
+  it('guards CSV text cells that a spreadsheet would run as formulas, never numbers, JSON or XML', () => {
+    const row: ExportRow = {
+      ...base,
+      speciesName: '=HYPERLINK("https://example.invalid")',
+      method: '@evaluated',
+      sourceCitation: '+1 demo source',
+      sourceDoi: '-10.1000/demo',
+    };
+    const [, line] = run('csv', [[row]]).split('\n');
+    expect(line).toBe(
+      `formation_enthalpy,water,"'=HYPERLINK(""https://example.invalid"")",H2O,l,,formation_enthalpy,-285830,40,standard,'@evaluated,1 bar,,,,,,,,,,,,,,,,1,'+1 demo source,'-10.1000/demo`,
+    );
+    const [, heatLine] = run('csv', [[{ ...heat(1, '298', '1000'), speciesName: '-demo' }]]).split(
+      '\n',
+    );
+    expect(heatLine).toContain(`,'-demo,`);
+    expect(heatLine).toContain(',30.09,6.83,6.79,-2.53,0.08,,,,');
+
+    const doc = JSON.parse(run('json', [[row]]));
+    expect(doc.formationEnthalpies[0]).toMatchObject({
+      speciesName: row.speciesName,
+      method: '@evaluated',
+      source: { citation: '+1 demo source', doi: '-10.1000/demo' },
+    });
+    const xml = run('xml', [[row]]);
+    expect(xml).toContain(
+      '<speciesName>=HYPERLINK(&quot;https://example.invalid&quot;)</speciesName>',
+    );
+    expect(xml).toContain('<method>@evaluated</method>');
+    expect(xml).not.toContain("'");
+  });
 });

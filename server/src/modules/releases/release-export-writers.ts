@@ -1,4 +1,5 @@
 import { stringify } from 'csv-stringify/sync';
+import { guardCsvText } from '../../lib/csv-text';
 import { EXPORT_SECTIONS, type ExportRow, type ExportSection } from './release-exports-repository';
 
 /**
@@ -69,6 +70,22 @@ export const CSV_COLUMNS = [
   ['source_doi', (r: ExportRow) => r.sourceDoi],
 ] as const;
 
+/** Columns of numbers, whose leading '-' is a sign; every other column is text, guarded. */
+const CSV_NUMBER_COLUMNS: ReadonlySet<string> = new Set([
+  'value_j_per_mol',
+  'uncertainty_j_per_mol',
+  'temperature_k',
+  'range_index',
+  't_min_k',
+  't_max_k',
+  ...Array.from({ length: COEFFICIENTS }, (_, i) => `c${i + 1}`),
+  'revision_id',
+]);
+
+const CSV_CELLS = CSV_COLUMNS.map(([name, get]) =>
+  CSV_NUMBER_COLUMNS.has(name) ? get : (r: ExportRow) => guardCsvText(get(r)),
+);
+
 function csvWriter(): ExportWriter {
   const options = { record_delimiter: '\n' } as const;
   return {
@@ -77,7 +94,7 @@ function csvWriter(): ExportWriter {
       batch.length === 0
         ? ''
         : stringify(
-            batch.map((r) => CSV_COLUMNS.map(([, get]) => get(r) ?? '')),
+            batch.map((r) => CSV_CELLS.map((get) => get(r) ?? '')),
             options,
           ),
     end: () => '',

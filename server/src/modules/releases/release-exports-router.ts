@@ -3,6 +3,7 @@ import type { Request, Response } from 'express';
 import { Router } from 'express';
 import { stringify } from 'csv-stringify/sync';
 import { z } from 'zod';
+import { guardCsvText } from '../../lib/csv-text';
 import { validate } from '../../middleware/validate';
 import { IMMUTABLE_CACHE, LATEST_CACHE, sendReleaseAnswer } from './release-http-cache';
 import { EXPORT_CONTENT_TYPES, type ExportFormat } from './release-export-writers';
@@ -52,11 +53,33 @@ function responseSink(res: Response) {
 const snake = (key: string) => key.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
 const DIFF_KEYS = Object.keys(ReleaseDiffRow.shape) as (keyof ReleaseDiffRow)[];
 
-/** The diff as CSV: one row per JSON row, the same fields in the same order, snake_case headers. */
+/** Fields of numbers, whose leading '-' is a sign; every other field is text, guarded. */
+const DIFF_NUMBERS: ReadonlySet<keyof ReleaseDiffRow> = new Set([
+  'oldRevisionId',
+  'newRevisionId',
+  'oldValue',
+  'newValue',
+  'oldUncertainty',
+  'newUncertainty',
+  'differenceKjPerMol',
+  'combinedUncertaintyKjPerMol',
+  'differenceInUncertainties',
+] as const);
+
+const diffCell = (r: ReleaseDiffRow, k: keyof ReleaseDiffRow) => {
+  const v = r[k];
+  return DIFF_NUMBERS.has(k) || typeof v !== 'string' ? v : guardCsvText(v);
+};
+
+/**
+ * The diff as CSV: one row per JSON row, the same fields in the same order, snake_case headers;
+ * text cells guarded against running as spreadsheet formulas.
+ */
 export function diffCsv(diff: ReleaseDiff): string {
-  return stringify([DIFF_KEYS.map(snake), ...diff.rows.map((r) => DIFF_KEYS.map((k) => r[k]))], {
-    record_delimiter: '\n',
-  });
+  return stringify(
+    [DIFF_KEYS.map(snake), ...diff.rows.map((r) => DIFF_KEYS.map((k) => diffCell(r, k)))],
+    { record_delimiter: '\n' },
+  );
 }
 
 export function releaseExportsRouter(
