@@ -18,13 +18,26 @@ const accepted = async (t: TestApp, key: string, phase: string): Promise<number>
     ).value,
   );
 
+/** The reaction API's answer (the latest release, which the accepted values still equal). */
+const reactionApi = (t: TestApp, equation: string, temperatureK: number) =>
+  request(t.app)
+    .get('/api/v1/reaction-enthalpy')
+    .query({ equation, temperatureK: String(temperatureK), unit: 'kJ/mol' });
+
+/** Combustion to steam; liquid water inside its Shomate range (273.15–373.15 K); past the data. */
+const HOT = [
+  { equation: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)', temperatureK: 500 },
+  { equation: 'H2(g) + 1/2 O2(g) -> H2O(l)', temperatureK: 350 },
+  { equation: 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)', temperatureK: 8000 },
+];
+
 describe('GET /api/v1/proposals/:id/watchlist-impact', () => {
   jest.setTimeout(120_000);
   let t: TestApp;
   let reader: Curator, curator: Curator, editor: Curator, editor2: Curator;
   let proposalId: number;
   let methaneDelta: number;
-  let ownList: number, othersList: number;
+  let ownList: number, othersList: number, hotList: number;
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -47,12 +60,15 @@ describe('GET /api/v1/proposals/:id/watchlist-impact', () => {
         uncertainty: 40,
       }),
     ]);
-    const save = async (who: Curator, name: string, equations: string[]) =>
+    const save = async (who: Curator, name: string, equations: string[], temperatureK?: number[]) =>
       (
         await who
           .post('/api/v1/me/watchlists', {
             name,
-            reactions: equations.map((equation) => ({ equation })),
+            reactions: equations.map((equation, i) => ({
+              equation,
+              ...(temperatureK ? { temperatureK: temperatureK[i] } : {}),
+            })),
           })
           .expect(201)
       ).body.watchlist.id as number;
@@ -63,6 +79,13 @@ describe('GET /api/v1/proposals/:id/watchlist-impact', () => {
       'Xx2(g) -> Xx2(l)',
     ]);
     othersList = await save(editor2, 'Someone else', ['CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)']);
+    // Away from 298.15 K: every species here has a heat-capacity set in the starter data.
+    hotList = await save(
+      editor,
+      'Kiln duties',
+      [...HOT.map((r) => r.equation)],
+      [...HOT.map((r) => r.temperatureK)],
+    );
   });
   afterAll(() => t.close());
 
@@ -72,7 +95,7 @@ describe('GET /api/v1/proposals/:id/watchlist-impact', () => {
     const answer = WatchlistImpactAnswer.parse((await editor.get(path()).expect(200)).body);
     expect(answer).toMatchObject({ proposalId, status: 'submitted' });
     expect(answer.caution).toMatch(/caution|engineer/i);
-    expect(answer.watchlists.map((w) => w.id)).toEqual([ownList]);
+    expect(answer.watchlists.map((w) => w.id)).toEqual([ownList, hotList]);
     const [list] = answer.watchlists;
     expect(list!.report).toMatchObject({ unit: 'kJ/mol', from: 'accepted', count: 4, errors: 1 });
     const [combustion, co2, water, unknown] = list!.report.results;
@@ -92,6 +115,65 @@ describe('GET /api/v1/proposals/:id/watchlist-impact', () => {
     expect('error' in unknown!.from && unknown!.from.error.code).toBeTruthy();
     expect(unknown!.change).toBeNull();
     expect(list!.affected).toBe(2);
+  });
+
+  it('computes reactions at other temperatures through the heat-capacity data, as the reaction API does', async () => {
+    const answer = WatchlistImpactAnswer.parse((await editor.get(path()).expect(200)).body);
+    const hot = answer.watchlists.find((w) => w.id === hotList)!;
+    expect(hot.report).toMatchObject({ count: 3, errors: 1 });
+    const [steam, liquid, tooHot] = hot.report.results;
+    expect([steam, liquid, tooHot].map((r) => r!.temperatureK)).toEqual([500, 350, 8000]);
+    // Before: the reaction API's answer for the same equation and temperature; after: moved by
+    // ν × the proposal's ΔfH° change (methane ν = −1; liquid water ν = 1, +1 kJ/mol).
+    for (const [r, nuDelta] of [
+      [steam!, -methaneDelta / 1000],
+      [liquid!, 1],
+    ] as const) {
+      const api = (await reactionApi(t, r.input, r.temperatureK).expect(200)).body;
+      expect(api.temperatureK).toBe(r.temperatureK);
+      expect(r.from).toMatchObject({ deltaH: api.deltaH });
+      expect('deltaH' in r.to && r.to.deltaH).toBeCloseTo(api.deltaH + nuDelta, 9);
+      expect(r.change).toBeCloseTo(nuDelta, 9);
+    }
+    // The temperature differs from 298.15 K enough to move ΔrH: Kirchhoff's law was applied.
+    const standard = (await reactionApi(t, steam!.input, 298.15).expect(200)).body;
+    expect(
+      Math.abs(standard.deltaH - ('deltaH' in steam!.from ? steam!.from.deltaH : NaN)),
+    ).toBeGreaterThan(1);
+    // Past the data's range: the reaction API's coded error, on both sides.
+    const refused = await reactionApi(t, tooHot!.input, tooHot!.temperatureK).expect(422);
+    expect(refused.body.error.code).toBe('out_of_range');
+    for (const side of [tooHot!.from, tooHot!.to]) {
+      expect('error' in side && side.error.code).toBe(refused.body.error.code);
+    }
+    expect(tooHot!.change).toBeNull();
+    expect(hot.affected).toBe(2);
+  });
+
+  it("applies the proposal's own heat-capacity set: narrower data refuses 500 K with it", async () => {
+    const source = await sourceId(t);
+    // Demo data — not a real measurement: a methane set that stops at 400 K.
+    const narrow = await submitted(curator, [
+      {
+        kind: 'supersede_value',
+        species: 'methane',
+        phase: 'g',
+        quantity: 'heat_capacity',
+        form: 'shomate',
+        ranges: [{ tMin: 298, tMax: 400, coefficients: [-0.703, 108.48, -42.52, 5.86, 0.679] }],
+        sourceId: source,
+      },
+    ]);
+    const answer = WatchlistImpactAnswer.parse((await editor.get(path(narrow)).expect(200)).body);
+    const hot = answer.watchlists.find((w) => w.id === hotList)!;
+    const [steam, liquid] = hot.report.results;
+    expect('deltaH' in steam!.from).toBe(true);
+    expect('error' in steam!.to && steam!.to.error.code).toBe('out_of_range');
+    expect(steam!.change).toBeNull();
+    expect(liquid!.change).toBe(0);
+    expect(hot.affected).toBe(1);
+    // At 298.15 K heat capacities play no part: the other list does not move.
+    expect(answer.watchlists.find((w) => w.id === ownList)!.affected).toBe(0);
   });
 
   it('moves methane combustion by exactly −Δ when only methane changes', async () => {

@@ -1,5 +1,4 @@
-import { sql } from 'drizzle-orm';
-import { revisions, type ItemDerivation } from '../../../../schema';
+import type { ItemDerivation } from '../../../../schema';
 import type { Database, Tx } from '../../db/client';
 import { AppError } from '../../lib/app-error';
 import {
@@ -19,7 +18,7 @@ import {
 import { resolveEquation } from '../reactions/reaction-resolver';
 import { buildSnapshot, type ReleaseSnapshot } from '../releases/release-snapshot';
 import { releasesRepository } from '../releases/releases-repository';
-import { loadSnapshotInput } from '../releases/snapshot-input';
+import { loadAcceptedInput, loadSnapshotInput } from '../releases/snapshot-input';
 import { decimalText } from './values-si';
 
 type Queryable = Database | Tx;
@@ -33,7 +32,7 @@ export type SnapshotSource = (release: string) => Promise<ReleaseSnapshot>;
 /**
  * Snapshots for derivations and review: published releases through `published` (the releases
  * service's shared cache) or loaded directly; `accepted` is built from the current accepted
- * ΔfH° revisions each time (they change with every approval), once per source.
+ * revisions each time (they change with every approval), once per source.
  */
 export function snapshotSource(
   db: Queryable,
@@ -70,64 +69,12 @@ async function publishedSnapshot(
   return buildSnapshot(await loadSnapshotInput(db, row));
 }
 
-interface AcceptedRow extends Record<string, unknown> {
-  revisionId: number;
-  speciesKey: string;
-  speciesName: string;
-  speciesFormula: string;
-  speciesCharge: number;
-  speciesSynonyms: string[];
-  phase: 'g' | 'l' | 'cr' | 'am' | 'aq';
-  modification: string | null;
-  value: string;
-  uncertainty: string | null;
-  uncertaintyBasis: UncertaintyBasis | null;
-  method: string | null;
-  standardPressure: '1 bar' | '1 atm';
-  sourceId: number;
-  citation: string;
-  doi: string | null;
-}
-
+/**
+ * Every accepted quantity indexed as a release's rows are, so reactions away from 298.15 K go
+ * through the heat-capacity data as they do against a release.
+ */
 async function acceptedSnapshot(db: Queryable): Promise<ReleaseSnapshot> {
-  const { rows } = await db.execute<AcceptedRow>(sql`
-    select r.id as "revisionId", s.key as "speciesKey", s.name as "speciesName",
-           s.formula as "speciesFormula", s.charge as "speciesCharge",
-           s.synonyms as "speciesSynonyms", sp.phase, sp.modification, r.value, r.uncertainty,
-           r.uncertainty_basis as "uncertaintyBasis", r.method,
-           r.standard_pressure as "standardPressure", so.id as "sourceId", so.citation, so.doi
-    from ${revisions} r
-    join species_phases sp on sp.id = r.species_phase_id
-    join species s on s.id = sp.species_id
-    join sources so on so.id = r.source_id
-    where r.status = 'accepted' and r.quantity = 'formation_enthalpy'`);
-  const species = new Map<string, AcceptedRow>();
-  for (const r of rows) species.set(r.speciesKey, r);
-  return buildSnapshot({
-    version: ACCEPTED,
-    publishedAt: null,
-    species: [...species.values()].map((r) => ({
-      key: r.speciesKey,
-      name: r.speciesName,
-      formula: r.speciesFormula,
-      charge: r.speciesCharge,
-      synonyms: r.speciesSynonyms,
-    })),
-    formationValues: rows.map((r) => ({
-      revisionId: String(r.revisionId),
-      speciesKey: r.speciesKey,
-      phase: r.phase,
-      modification: r.modification,
-      value: r.value,
-      uncertainty: r.uncertainty,
-      uncertaintyBasis: r.uncertaintyBasis,
-      method: r.method ?? 'unspecified',
-      standardPressure: r.standardPressure,
-      source: { id: String(r.sourceId), citation: r.citation, doi: r.doi },
-    })),
-    heatCapacitySets: [],
-    transitions: [],
-  });
+  return buildSnapshot(await loadAcceptedInput(db, ACCEPTED));
 }
 
 /** The species a derivation is for: its stored formula, charge and the phase it is derived in. */

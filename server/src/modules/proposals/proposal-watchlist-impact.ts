@@ -8,7 +8,10 @@ import {
   entryId,
   type ReleaseSnapshot,
   type SnapshotFormationValue,
+  type SnapshotHeatCapacitySet,
   type SnapshotSpecies,
+  type SnapshotTransition,
+  type SnapshotTransitionEntry,
   type SpeciesPhaseEntry,
 } from '../releases/release-snapshot';
 import { hasRole } from '../users/roles';
@@ -17,6 +20,7 @@ import { watchlistsRepository } from '../watchlists/watchlists-repository';
 import type { ImpactItem } from '../watchlists/watchlists-schemas';
 import { ACCEPTED, type SnapshotSource } from './derivation';
 import { storedFormula } from './item-check';
+import { heatModel } from './item-rules';
 import type { ProposalItemInput } from './proposal-item-schemas';
 import { proposalsRepository } from './proposals-repository';
 import type { WatchlistImpactAnswer } from './proposals-schemas';
@@ -41,22 +45,49 @@ const plainRow = ({
   ...row
 }: Formation): SnapshotFormationValue => row;
 
+/** A transition as a row again (its numbers as text that parses back to the same numbers). */
+const plainTransition = (t: SnapshotTransitionEntry): SnapshotTransition => ({
+  revisionId: t.revisionId,
+  speciesKey: t.from.species.key,
+  fromPhase: t.from.phase,
+  fromModification: t.from.modification,
+  toPhase: t.to.phase,
+  toModification: t.to.modification,
+  temperature: String(t.temperature),
+  deltaH: String(t.deltaH),
+  source: t.source,
+});
+
+/** One accepted transition per species-phase and target phase, as the registry keeps them. */
+const transitionKey = (t: SnapshotTransition) =>
+  `${entryId(t.speciesKey, t.fromPhase, t.fromModification)}>${t.toPhase},${t.toModification ?? ''}`;
+
+const dropRevision = (rows: Map<string, { revisionId: string }>, revisionId: string) => {
+  for (const [k, row] of rows) if (row.revisionId === revisionId) rows.delete(k);
+};
+
 /**
- * The accepted values with a proposal's ΔfH° items applied, as approving it would: new species,
- * new and superseding values in place of their targets, retired values gone. Heat capacities and
- * transitions are not overlaid (the accepted index holds none).
+ * The accepted values with a proposal's items applied, as approving it would: new species, new
+ * and superseding ΔfH° values, heat-capacity sets and transitions in place of their targets,
+ * retired ones gone.
  */
 export function overlaid(
   base: ReleaseSnapshot,
   proposalId: number,
   items: readonly ProposalItemRow[],
-  /** Registry species the accepted values do not hold yet (no accepted ΔfH° of their own). */
+  /** Registry species the accepted values do not hold yet (no accepted value of their own). */
   registered: readonly SnapshotSpecies[] = [],
 ): ReleaseSnapshot {
   const species = new Map<string, SnapshotSpecies>(base.species);
   for (const s of registered) if (!species.has(s.key)) species.set(s.key, s);
   const values = new Map<string, SnapshotFormationValue>();
-  for (const [id, e] of base.entries) if (e.formation) values.set(id, plainRow(e.formation));
+  const heat = new Map<string, SnapshotHeatCapacitySet>();
+  const transitions = new Map<string, SnapshotTransition>();
+  for (const [id, e] of base.entries) {
+    if (e.formation) values.set(id, plainRow(e.formation));
+    if (e.heatCapacity) heat.set(id, e.heatCapacity);
+    for (const t of e.transitionsUp.map(plainTransition)) transitions.set(transitionKey(t), t);
+  }
 
   for (const item of items) {
     const input = item.input as ProposalItemInput;
@@ -70,25 +101,49 @@ export function overlaid(
       });
       continue;
     }
-    if (item.quantity !== 'formation_enthalpy' || item.speciesKey === null || !item.phase) continue;
+    if (item.quantity === null || item.speciesKey === null || !item.phase) continue;
     if (item.targetRevisionId !== null) {
       const target = String(item.targetRevisionId);
-      for (const [id, v] of values) if (v.revisionId === target) values.delete(id);
+      for (const rows of [values, heat, transitions]) dropRevision(rows, target);
     }
-    if (input.kind === 'retire_value' || item.value === null || !species.has(item.speciesKey))
+    if (input.kind === 'retire_value' || !species.has(item.speciesKey)) continue;
+    const id = entryId(item.speciesKey, item.phase, item.modification);
+    const revisionId = `proposal-${proposalId}#${item.seq}`;
+    const source = { id: String(item.sourceId ?? ''), citation: '', doi: null };
+    const at = { speciesKey: item.speciesKey, phase: item.phase, modification: item.modification };
+    if ('quantity' in input && input.quantity === 'heat_capacity') {
+      // Checked at submission; a set the engine refuses is left out, as approval would refuse it.
+      const model = heatModel(input.form, input.ranges, () => {});
+      if (model) heat.set(id, { revisionId, ...at, model, source });
       continue;
+    }
+    if (item.value === null) continue;
+    if ('quantity' in input && input.quantity === 'transition') {
+      const t: SnapshotTransition = {
+        revisionId,
+        speciesKey: item.speciesKey,
+        fromPhase: item.phase,
+        fromModification: item.modification,
+        toPhase: input.toPhase,
+        toModification: input.toModification ?? null,
+        temperature: String(input.temperature),
+        deltaH: item.value,
+        source,
+      };
+      transitions.set(transitionKey(t), t);
+      continue;
+    }
+    if (item.quantity !== 'formation_enthalpy') continue;
     const basis = 'uncertaintyBasis' in input ? (input.uncertaintyBasis ?? null) : null;
-    values.set(entryId(item.speciesKey, item.phase, item.modification), {
-      revisionId: `proposal-${proposalId}#${item.seq}`,
-      speciesKey: item.speciesKey,
-      phase: item.phase,
-      modification: item.modification,
+    values.set(id, {
+      revisionId,
+      ...at,
       value: item.value,
       uncertainty: item.uncertainty,
       uncertaintyBasis: item.uncertainty === null ? null : (basis ?? 'as_stated'),
       method: 'method' in input && input.method ? input.method : 'unspecified',
       standardPressure: 'standardPressure' in input ? input.standardPressure : '1 bar',
-      source: { id: String(item.sourceId ?? ''), citation: '', doi: null },
+      source,
     });
   }
   return buildSnapshot({
@@ -96,8 +151,8 @@ export function overlaid(
     publishedAt: null,
     species: [...species.values()],
     formationValues: [...values.values()],
-    heatCapacitySets: [],
-    transitions: [],
+    heatCapacitySets: [...heat.values()],
+    transitions: [...transitions.values()],
   });
 }
 

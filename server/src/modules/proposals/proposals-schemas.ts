@@ -294,9 +294,11 @@ export type RederiveAnswer = CreateAnswer;
 // ---- GET /api/v1/proposals/:id/watchlist-impact ----
 
 /**
- * The caller's watchlists with the proposal's ΔfH° items applied: `from` is the accepted values
- * (`accepted`), `to` the same with the proposal overlaid (`proposal-<id>`). Every reaction is
- * listed; those the proposal moves count in `affected`.
+ * The caller's watchlists with the proposal's items applied: `from` is the accepted values
+ * (`accepted`, heat capacities and transitions included, so a reaction saved at another
+ * temperature is computed as the reaction API computes it), `to` the same with the proposal
+ * overlaid (`proposal-<id>`). Every reaction is listed; those the proposal moves count in
+ * `affected`.
  */
 export const WatchlistImpactAnswer = z.object({
   proposalId: z.number().int(),

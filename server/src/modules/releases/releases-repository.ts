@@ -1,4 +1,4 @@
-import { aliasedTable, asc, desc, eq, inArray, sql } from 'drizzle-orm';
+import { aliasedTable, asc, desc, eq, inArray, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
 import {
   heatCapacityRanges,
   releaseEntries,
@@ -48,7 +48,9 @@ const listColumns = {
   publishedByName: publisher.name,
 };
 
-/** The value columns of pinned rows, with their species-phase and source, for snapshots. */
+/** What a snapshot reads: ΔfH° values, heat-capacity sets, or every transition. */
+export type PinnedQuantity = 'formation_enthalpy' | 'heat_capacity' | 'transition';
+
 /** One pinned revision with its species-phase and source, as the snapshot loader reads it. */
 export type PinnedRow = {
   revisionId: number;
@@ -163,30 +165,23 @@ export const releasesRepository = {
    * Pinned revisions of one quantity (or of every transition) with species-phase and source.
    * Plain SQL: at 20,000 rows the driver's objects are used as they come, without a mapping pass.
    */
-  async pinned(
-    db: Queryable,
-    releaseId: number,
-    quantity: 'formation_enthalpy' | 'heat_capacity' | 'transition',
-  ): Promise<PinnedRow[]> {
-    const which =
-      quantity === 'transition'
-        ? sql`${releaseEntries.quantity} like 'transition:%'`
-        : sql`${releaseEntries.quantity} = ${quantity}`;
-    const result = await db.execute<PinnedRow>(sql`
-      select r.id as "revisionId", s.key as "speciesKey", s.name as "speciesName",
-             s.formula as "speciesFormula", s.charge as "speciesCharge",
-             s.synonyms as "speciesSynonyms", sp.phase, sp.modification, r.value, r.uncertainty,
-             r.uncertainty_basis as "uncertaintyBasis", r.method,
-             r.standard_pressure as "standardPressure", r.temperature, r.to_phase as "toPhase",
-             r.to_modification as "toModification", r.heat_capacity_form as "heatCapacityForm",
-             so.id as "sourceId", so.citation, so.doi
-      from ${releaseEntries}
+  pinned(db: Queryable, releaseId: number, quantity: PinnedQuantity): Promise<PinnedRow[]> {
+    return valueRows(
+      db,
+      sql`${releaseEntries}
       join ${revisions} r on r.id = ${releaseEntries.revisionId}
-      join ${speciesPhases} sp on sp.id = ${releaseEntries.speciesPhaseId}
-      join ${species} s on s.id = sp.species_id
-      join ${sources} so on so.id = r.source_id
-      where ${releaseEntries.releaseId} = ${releaseId} and ${which}`);
-    return result.rows;
+      join ${speciesPhases} sp on sp.id = ${releaseEntries.speciesPhaseId}`,
+      sql`${releaseEntries.releaseId} = ${releaseId} and ${quantityIs(releaseEntries.quantity, quantity)}`,
+    );
+  },
+
+  /** The accepted revisions of one quantity (what the next release would pin), as `pinned`. */
+  accepted(db: Queryable, quantity: PinnedQuantity): Promise<PinnedRow[]> {
+    return valueRows(
+      db,
+      sql`${revisions} r join ${speciesPhases} sp on sp.id = r.species_phase_id`,
+      sql`r.status = 'accepted' and ${quantityIs(sql.raw('r.quantity'), quantity)}`,
+    );
   },
 
   /** Heat-capacity ranges of the given revisions, in order. */
@@ -199,3 +194,24 @@ export const releasesRepository = {
       .orderBy(asc(heatCapacityRanges.revisionId), asc(heatCapacityRanges.seq));
   },
 };
+
+/** One quantity's rows, or every transition (`transition:<to phase>…`). */
+const quantityIs = (column: SQLWrapper, quantity: PinnedQuantity): SQL =>
+  quantity === 'transition' ? sql`${column} like 'transition:%'` : sql`${column} = ${quantity}`;
+
+/** Revisions `r` of species-phases `sp` (joined in `from`) with their species and source. */
+async function valueRows(db: Queryable, from: SQL, where: SQL): Promise<PinnedRow[]> {
+  const result = await db.execute<PinnedRow>(sql`
+    select r.id as "revisionId", s.key as "speciesKey", s.name as "speciesName",
+           s.formula as "speciesFormula", s.charge as "speciesCharge",
+           s.synonyms as "speciesSynonyms", sp.phase, sp.modification, r.value, r.uncertainty,
+           r.uncertainty_basis as "uncertaintyBasis", r.method,
+           r.standard_pressure as "standardPressure", r.temperature, r.to_phase as "toPhase",
+           r.to_modification as "toModification", r.heat_capacity_form as "heatCapacityForm",
+           so.id as "sourceId", so.citation, so.doi
+    from ${from}
+    join ${species} s on s.id = sp.species_id
+    join ${sources} so on so.id = r.source_id
+    where ${where}`);
+  return result.rows;
+}

@@ -1,6 +1,6 @@
 import type { HeatCapacityModel, ShomateRange } from '../../thermo';
 import type { Tx } from '../../db/client';
-import type { Queryable } from './releases-repository';
+import type { PinnedQuantity, PinnedRow, Queryable } from './releases-repository';
 import { releasesRepository } from './releases-repository';
 import type {
   SnapshotHeatCapacitySet,
@@ -92,18 +92,16 @@ const sourceOf = (r: {
 
 const QUANTITIES = ['formation_enthalpy', 'heat_capacity', 'transition'] as const;
 
+type ReadQuantity = (tx: Tx, quantity: PinnedQuantity) => Promise<PinnedRow[]>;
+
 /**
- * The pinned rows of a release. A published release never changes, so on a pool its three
- * queries run at once on their own connections (a cold load waits for the slowest, not the sum);
- * inside a caller's transaction, or for a draft, they run one after another in one snapshot.
+ * The rows of every quantity and the heat-capacity ranges. Rows that never change are read on a
+ * pool with the three queries at once on their own connections (a cold load waits for the
+ * slowest, not the sum); inside a caller's transaction, or for rows that may change, they run
+ * one after another in one transaction.
  */
-async function readPinnedRows(db: Queryable, release: { id: number; publishedAt: Date | null }) {
-  const read = async (tx: Tx, quantity: (typeof QUANTITIES)[number]) => {
-    await releasesRepository.preferKeyProbes(tx);
-    // Species come with their rows, so no separate species query is needed.
-    return releasesRepository.pinned(tx, release.id, quantity);
-  };
-  const onPool = '$client' in db && release.publishedAt !== null;
+async function readRows(db: Queryable, unchanging: boolean, read: ReadQuantity) {
+  const onPool = '$client' in db && unchanging;
   const [formation, heat, transitions] = onPool
     ? await Promise.all(QUANTITIES.map((q) => db.transaction((tx) => read(tx, q))))
     : await db.transaction(async (tx) => {
@@ -118,12 +116,40 @@ async function readPinnedRows(db: Queryable, release: { id: number; publishedAt:
   return { formation: formation!, heat: heat!, transitions: transitions!, ranges };
 }
 
+/** The pinned rows of a release (a published one never changes). */
+function readPinnedRows(db: Queryable, release: { id: number; publishedAt: Date | null }) {
+  return readRows(db, release.publishedAt !== null, async (tx, quantity) => {
+    await releasesRepository.preferKeyProbes(tx);
+    // Species come with their rows, so no separate species query is needed.
+    return releasesRepository.pinned(tx, release.id, quantity);
+  });
+}
+
 /** The plain rows of one release from the database: what `buildSnapshot` indexes. */
 export async function loadSnapshotInput(
   db: Queryable,
   release: { id: number; version: string; publishedAt: Date | null },
 ): Promise<SnapshotInput> {
-  const { formation, heat, transitions, ranges } = await readPinnedRows(db, release);
+  return inputOf(release.version, release.publishedAt, await readPinnedRows(db, release));
+}
+
+/**
+ * The accepted revisions of every quantity (what the next release would pin, unpublished) as
+ * the rows of a release labelled `version`: what `buildSnapshot` indexes.
+ */
+export async function loadAcceptedInput(db: Queryable, version: string): Promise<SnapshotInput> {
+  return inputOf(
+    version,
+    null,
+    await readRows(db, false, (tx, quantity) => releasesRepository.accepted(tx, quantity)),
+  );
+}
+
+function inputOf(
+  version: string,
+  publishedAt: Date | null,
+  { formation, heat, transitions, ranges }: Awaited<ReturnType<typeof readRows>>,
+): SnapshotInput {
   const rangesByRevision = new Map<number, RangeRow[]>();
   for (const r of ranges) {
     const list = rangesByRevision.get(r.revisionId);
@@ -131,8 +157,8 @@ export async function loadSnapshotInput(
     else rangesByRevision.set(r.revisionId, [r]);
   }
   return {
-    version: release.version,
-    publishedAt: release.publishedAt?.toISOString() ?? null,
+    version,
+    publishedAt: publishedAt?.toISOString() ?? null,
     species: speciesOfRows([...formation, ...heat, ...transitions]),
     formationValues: formation.map((f) => ({
       revisionId: String(f.revisionId),
