@@ -577,7 +577,7 @@ describe('release composer', () => {
         );
         expect(mail!.text).toContain('  2033.1: ΔrH = −285.00 ± 0.04');
         expect(mail!.text).toContain(`  change +${item.change.toFixed(2)} kJ/mol`);
-        expect(mail!.text).toContain(`/releases/diff/${base}/2033.1`);
+        expect(mail!.text).toContain(`/releases/${base}/diff/2033.1`);
       } finally {
         close();
       }

@@ -9,6 +9,7 @@ import {
   signInFromHome,
   type BrowserSession,
 } from '../support/browser';
+import { releaseImpactMail } from '../../server/src/modules/releases/release-mail';
 import { publishRevisedWater } from '../support/releases';
 
 describe('an integrator downloads a release, checks its checksum and compares releases', () => {
@@ -75,6 +76,25 @@ describe('an integrator downloads a release, checks its checksum and compares re
     await row.waitFor();
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
     await screenshot(page, 'integrator-diff-phone');
+    expect(s.problems).toEqual([]);
+  });
+
+  it('follows the publish e-mail’s comparison link to the same page', async () => {
+    const { page, baseUrl } = s;
+    const mail = releaseImpactMail(
+      {
+        owner: { id: 1, login: 'demo-reader', name: 'Reader', email: null },
+        watchlist: { id: 1, name: 'Boiler feed' },
+        report: {
+          ...{ from: '2026.1', to: '2026.2', unit: 'kJ/mol', watchlistId: 1 },
+          ...{ count: 0, errors: 0, exceeding: 0, results: [], caution: '' },
+        },
+      },
+      baseUrl,
+    );
+    const link = /Compare the releases: (\S+)/.exec(mail.text)![1]!;
+    await page.goto(link);
+    await page.getByRole('heading', { name: /2026\.1 → 2026\.2/ }).waitFor();
     expect(s.problems).toEqual([]);
   });
 });

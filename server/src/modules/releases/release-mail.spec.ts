@@ -56,7 +56,7 @@ describe('releaseImpactMail', () => {
     expect(mail.text).toContain(
       '1 of 1 reactions changed by more than their combined uncertainty.',
     );
-    expect(mail.text).toContain('https://thalpos.kestrel.example/releases/diff/2026.1/2026.2');
+    expect(mail.text).toContain('https://thalpos.kestrel.example/releases/2026.1/diff/2026.2');
     expect(mail).toMatchObject({ eventKind: 'release.published', recipientId: 7 });
   });
 

@@ -59,7 +59,7 @@ export function releaseImpactMail(r: WatcherReport, publicUrl: string): Omit<Out
       `Thalpos release ${report.to} is published. Reaction enthalpies of your watchlist ` +
       `“${watchlist.name}” at its temperatures, ${report.from} → ${report.to}:\n\n` +
       `${summary}\n\n${lines.join('\n')}\n\n` +
-      `Compare the releases: ${publicUrl}/releases/diff/${report.from}/${report.to}\n\n` +
+      `Compare the releases: ${publicUrl}/releases/${report.from}/diff/${report.to}\n\n` +
       `${report.caution}\n\n` +
       `You get this because you keep this watchlist; turn release e-mails off in your settings.`,
     eventKind: 'release.published',
