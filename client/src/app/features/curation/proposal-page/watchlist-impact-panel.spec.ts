@@ -112,8 +112,9 @@ describe('WatchlistImpactPanel', () => {
             }),
             item({
               index: 2,
-              from: side(-890.0, 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(l)'),
-              to: side(-891.2),
+              temperatureK: 500,
+              from: side(-800.0, 'CH4(g) + 2 O2(g) -> CO2(g) + 2 H2O(g)'),
+              to: side(-801.2),
               change: -1.2,
               combinedUncertainty: 3,
               exceedsUncertainty: false,
@@ -133,9 +134,11 @@ describe('WatchlistImpactPanel', () => {
     expect(first).toContain('−285.83 kJ/mol');
     expect(first).toContain('−284.83 kJ/mol');
     expect(first).toContain('+1 kJ/mol');
+    expect(first).toContain('at 298.15 K');
     expect(first).toContain('larger than the combined uncertainty (±0.057');
     const second = rows[1]!.textContent!;
     expect(second).toContain('−1.2 kJ/mol');
+    expect(second).toContain('at 500 K');
     expect(second).toContain('Within the combined uncertainty (±3 kJ/mol)');
     expect(second).not.toContain('larger than');
     expect(el.querySelector('h3')!.textContent).toContain('Burner duties');
