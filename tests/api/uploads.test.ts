@@ -131,6 +131,19 @@ describe('bulk upload of proposal items', () => {
       ]);
     });
 
+    it('warns of a likely duplicate species in the dry run, by its line, without blocking', async () => {
+      const csv = [
+        'key,name,formula,charge,synonyms,cas_rn,inchi,inchikey,smiles,notes',
+        'kpw-demo-methane,Methane,CH4,0,,,,,,demo data',
+      ].join('\n');
+      const p = UploadPreview.parse((await upload(csv, 'species.csv').expect(200)).body);
+      expect(p.ok).toBe(true);
+      expect(p.warnings).toEqual([
+        expect.objectContaining({ code: 'likely_duplicate', species: 'methane' }),
+      ]);
+      expect(p.warnings[0]!.message).toMatch(/^Line 2: /);
+    });
+
     it('names a missing column as a problem of the file and still shows the rows', async () => {
       const header = FORMATION_HEADER.replace(',method', '');
       const row = formationRow('methanol', 'g').replace(',combustion_calorimetry', '');

@@ -7,13 +7,14 @@ import { usersRepository } from '../users/users-repository';
 import { snapshotSource } from './derivation';
 import { checkAndResolve } from './item-check';
 import { proposalsRepository } from './proposals-repository';
-import type { CreateAnswer, CreateProposalBody, ItemIssue } from './proposals-schemas';
+import type { CreateAnswer, CreateProposalBody, ItemIssue, ItemWarning } from './proposals-schemas';
 
 /**
  * Drafts, for the proposals service and for other modules (bulk upload):
  * - `checkItems(dbOrTx, items)` validates raw items (zod shape, then the registry: species,
  *   phases, sources, formulas, identifiers, targets, derivations) without saving and returns
- *   `ItemIssue[]` (`{index, path, code, message}`, path like `items[3].casRn`); empty = valid.
+ *   `issues` (`{index, path, code, message}`, path like `items[3].casRn`; none = valid) and
+ *   `warnings` (likely duplicate species, never blocking).
  * - `createDraftIn(tx, actor, {rationale, items})` creates a draft proposal with its audit row
  *   inside the caller's transaction; throws 422 `invalid_items` (details.issues) when any item
  *   fails, 403 when the actor is no longer a curator. Returns `{id, status: 'draft', warnings}`.
@@ -31,8 +32,13 @@ export async function checkItems(
   db: Queryable,
   items: readonly unknown[],
   options: ItemCheckOptions = {},
-): Promise<ItemIssue[]> {
-  return (await checkAndResolve(db, items, snapshotSource(db, options.published))).issues;
+): Promise<{ issues: ItemIssue[]; warnings: ItemWarning[] }> {
+  const { issues, warnings } = await checkAndResolve(
+    db,
+    items,
+    snapshotSource(db, options.published),
+  );
+  return { issues, warnings };
 }
 
 export const invalidItems = (issues: ItemIssue[]) =>

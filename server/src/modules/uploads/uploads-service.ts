@@ -20,7 +20,10 @@ import type { PreviewRow, UploadCreated, UploadPreview } from './uploads-schemas
 
 /** The proposals core as an upload uses it: the same checks and draft creation as the form. */
 export interface ProposalsPort {
-  checkItems(db: Queryable, items: readonly ProposalItemInput[]): Promise<ItemIssue[]>;
+  checkItems(
+    db: Queryable,
+    items: readonly ProposalItemInput[],
+  ): Promise<{ issues: ItemIssue[]; warnings: ItemWarning[] }>;
   createDraftIn(
     tx: Tx,
     actor: Express.User,
@@ -116,8 +119,9 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
         });
     };
     // The proposals core checks each item's shape and its registry facts, as for the form.
-    if (items.length > 0)
-      for (const issue of await proposals.checkItems(q, items)) onItem(issue.index, issue);
+    const { issues, warnings } =
+      items.length > 0 ? await proposals.checkItems(q, items) : { issues: [], warnings: [] };
+    for (const issue of issues) onItem(issue.index, issue);
     const rows: PreviewRow[] = checked.rows.map((r) => {
       const index = itemOf.get(r);
       const first = index !== undefined && checked.entries[index]?.rows[0] === r;
@@ -146,7 +150,11 @@ export function createUploadsService(db: Database, proposals: ProposalsPort) {
           ? [{ message: 'The file has a header but no rows.' }]
           : checked.fileErrors,
       rows,
-      warnings: [],
+      // Shown in the dry run too (the form shows them as you type): named by the item's line.
+      warnings: warnings.map((w) => {
+        const line = checked.entries[w.index]?.rows[0]?.line;
+        return line === undefined ? w : { ...w, message: `Line ${line}: ${w.message}` };
+      }),
       items,
     };
   }
