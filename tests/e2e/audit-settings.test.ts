@@ -73,6 +73,13 @@ describe('settings and the audit log in the browser', () => {
     await page.setViewportSize(PHONE);
     await table.waitFor();
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
+    // Each entry's before-and-after button stays on the screen, not in a part scrolled away.
+    const button = table.getByRole('button', { name: /^Before and after of entry/ }).first();
+    await page.waitForFunction((w) => {
+      const b = document.querySelector('table[aria-label="Audit log"] button');
+      return !!b && b.getBoundingClientRect().right <= w;
+    }, PHONE.width);
+    expect((await button.boundingBox())!.x).toBeLessThan(PHONE.width);
     await screenshot(page, 'audit-log-phone');
     expect(s.problems).toEqual([]);
   });

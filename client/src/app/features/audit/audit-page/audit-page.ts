@@ -23,6 +23,7 @@ import {
 import type { AuditEntryView } from '@contracts/audit/audit-schemas';
 
 import { latestResponse } from '../../../shared/latest-response';
+import { phoneWidth } from '../../../shared/phone-width';
 import { TablePager } from '../../../shared/table-pager';
 import { AuditApi } from '../audit-api';
 import { auditRequest, formatState, type AuditFilterValue } from './audit-filter';
@@ -35,6 +36,9 @@ const EMPTY_FILTER: AuditFilterValue = {
   fromDay: '',
   toDay: '',
 };
+
+const COLUMNS = ['at', 'actor', 'action', 'entity', 'expand'];
+const PHONE_COLUMNS = ['at', 'action', 'expand'];
 
 /**
  * Audit log: who changed what and when, newest first, filtered by who, action, entity and days;
@@ -75,7 +79,9 @@ const EMPTY_FILTER: AuditFilterValue = {
 export class AuditLogPage {
   private readonly api = inject(AuditApi);
 
-  protected readonly columns = ['at', 'actor', 'action', 'entity', 'expand'] as const;
+  /** On a phone, who and which record move under the action (see the template). */
+  protected readonly phone = phoneWidth();
+  protected readonly columns = computed(() => (this.phone() ? PHONE_COLUMNS : COLUMNS));
   protected readonly detailColumns = ['detail'] as const;
   protected readonly pageSizes = [25, 50, 100] as const;
   protected readonly formatState = formatState;

@@ -1,4 +1,3 @@
-import { BreakpointObserver, Breakpoints } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, effect, inject } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
@@ -39,6 +38,7 @@ import { readableMessage } from '../../../core/api-error';
 import { LATEST, ReleaseContext } from '../../../core/release-context';
 import { ChemText } from '../../../shared/chem-text';
 import { latestResponse } from '../../../shared/latest-response';
+import { phoneWidth } from '../../../shared/phone-width';
 import { phaseName } from '../../../shared/phase-name';
 import { ReleasePicker } from '../../../shared/release-picker/release-picker';
 import { TablePager } from '../../../shared/table-pager';
@@ -103,12 +103,8 @@ export class BrowsePage {
 
   protected readonly phases = PHASES;
   protected readonly phaseName = phaseName;
-  protected readonly columns = toSignal(
-    inject(BreakpointObserver)
-      .observe(Breakpoints.XSmall)
-      .pipe(map((state) => (state.matches ? PHONE_COLUMNS : COLUMNS))),
-    { initialValue: COLUMNS },
-  );
+  private readonly phone = phoneWidth();
+  protected readonly columns = computed(() => (this.phone() ? PHONE_COLUMNS : COLUMNS));
 
   protected readonly query = new FormControl('', { nonNullable: true });
   protected readonly release = new FormControl(this.context.pinned(), { nonNullable: true });

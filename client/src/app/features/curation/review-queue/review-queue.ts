@@ -26,6 +26,7 @@ import { RouterLink } from '@angular/router';
 
 import type { ProposalStatus } from '@contracts/proposals/proposals-schemas';
 import { latestResponse } from '../../../shared/latest-response';
+import { phoneWidth } from '../../../shared/phone-width';
 import { TablePager } from '../../../shared/table-pager';
 import { CurationApi, type ProposalListRequest } from '../curation-api';
 import { KIND_WORDS, STATUS_WORDS, when } from '../proposal-status';
@@ -46,6 +47,9 @@ const QUEUE_FILTERS = [
 type QueueFilter = (typeof QUEUE_FILTERS)[number]['value'];
 
 const SORTABLE = ['id', 'submittedAt', 'updatedAt', 'status'] as const;
+
+const COLUMNS = ['id', 'rationale', 'author', 'status', 'submittedAt', 'items'];
+const PHONE_COLUMNS = ['id', 'rationale', 'submittedAt'];
 
 /** Editors' review queue: what waits for a decision, oldest first; stale derived values flagged. */
 @Component({
@@ -85,7 +89,9 @@ export class ReviewQueue {
 
   protected readonly filters = QUEUE_FILTERS;
   protected readonly when = when;
-  protected readonly columns = ['id', 'rationale', 'author', 'status', 'submittedAt', 'items'];
+  private readonly phone = phoneWidth();
+  // On a phone: number, proposal (with its out-of-date flag) and age; the filter says the status.
+  protected readonly columns = computed(() => (this.phone() ? PHONE_COLUMNS : COLUMNS));
 
   protected readonly show = new FormControl<QueueFilter>('submitted', { nonNullable: true });
   protected readonly staleOnly = new FormControl(false, { nonNullable: true });
