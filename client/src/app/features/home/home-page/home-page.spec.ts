@@ -15,7 +15,9 @@ describe('HomePage', () => {
   it('links only to screens that exist', () => {
     const page = render();
     const links = Array.from(page.querySelectorAll('a')).map((a) => a.getAttribute('href'));
-    expect(new Set(links)).toEqual(new Set(['/calculate/hess', '/browse', '/calculate/reaction']));
+    expect(new Set(links)).toEqual(
+      new Set(['/calculate/hess', '/browse', '/calculate/reaction', '/releases']),
+    );
   });
 
   it('lists exactly the four roles, and engineers and integrators as readers with a token', () => {

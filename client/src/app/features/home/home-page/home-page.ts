@@ -45,6 +45,12 @@ export class HomePage {
       path: '/calculate/hess',
       does: 'Combine reaction steps you measured or looked up into a target reaction and sum their ΔH, with the uncertainty.',
     },
+    {
+      icon: 'inventory_2',
+      title: 'Releases',
+      path: '/releases',
+      does: 'Every published release as CSV, JSON and XML with its SHA-256, and what changed between any two.',
+    },
   ];
 
   /** The four roles the registry knows, in order of what they may do. */
