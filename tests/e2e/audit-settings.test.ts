@@ -75,10 +75,10 @@ describe('settings and the audit log in the browser', () => {
     expect(await sidewaysOverflow(page)).toBeLessThanOrEqual(0);
     // Each entry's before-and-after button stays on the screen, not in a part scrolled away.
     const button = table.getByRole('button', { name: /^Before and after of entry/ }).first();
-    await page.waitForFunction((w) => {
-      const b = document.querySelector('table[aria-label="Audit log"] button');
-      return !!b && b.getBoundingClientRect().right <= w;
-    }, PHONE.width);
+    await page.waitForFunction(
+      `(() => { const b = document.querySelector('table[aria-label="Audit log"] button');
+        return !!b && b.getBoundingClientRect().right <= ${PHONE.width}; })()`,
+    );
     expect((await button.boundingBox())!.x).toBeLessThan(PHONE.width);
     await screenshot(page, 'audit-log-phone');
     expect(s.problems).toEqual([]);
