@@ -25,7 +25,10 @@ describe('an integrator downloads a release, checks its checksum and compares re
     const { page } = s;
     await signInFromHome(s, 'demo-reader', 'Tomas Reyes');
 
-    await page.getByRole('link', { name: 'Releases', exact: true }).click();
+    await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: 'Releases', exact: true })
+      .click();
     await page.waitForURL(/\/releases$/);
     const card = page.getByRole('article', { name: /Release 2026\.1/ });
     const downloads = card.getByRole('list', { name: 'Downloads of release 2026.1' });
