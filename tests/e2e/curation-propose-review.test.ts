@@ -85,6 +85,10 @@ describe('a curator proposes a value and an editor approves it', () => {
     await page.getByRole('heading', { name: 'Review' }).waitFor();
     await page.getByRole('link', { name: `#${id}`, exact: true }).click();
     await page.waitForURL(`${baseUrl}/curation/proposals/${id}`);
+    // Someone else's proposal is not among "My proposals": no curation tab claims this page.
+    const curationTabs = page.getByRole('navigation', { name: 'Curation' });
+    await curationTabs.getByRole('link', { name: 'Review' }).waitFor();
+    expect(await curationTabs.locator('a[aria-current="page"]').count()).toBe(0);
     const comparison = page.getByRole('group', { name: 'Recorded and proposed value' });
     await comparison.getByRole('region', { name: 'Recorded now' }).waitFor();
     await comparison

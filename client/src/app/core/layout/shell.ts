@@ -7,7 +7,13 @@ import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabLink, MatTabNav } from '@angular/material/tabs';
 import { MatToolbar } from '@angular/material/toolbar';
-import { NavigationEnd, Router, RouterLink, RouterLinkActive } from '@angular/router';
+import {
+  NavigationEnd,
+  Router,
+  RouterLink,
+  RouterLinkActive,
+  type IsActiveMatchOptions,
+} from '@angular/router';
 import { filter, map, startWith } from 'rxjs';
 
 import { readableMessage } from '../api-error';
@@ -46,6 +52,13 @@ export class Shell {
     { path: '/calculate/reaction', label: 'Reaction enthalpy' },
     { path: '/calculate/hess', label: 'Hess combination' },
   ] as const;
+
+  protected readonly exactPath: IsActiveMatchOptions = {
+    paths: 'exact',
+    queryParams: 'ignored',
+    matrixParams: 'ignored',
+    fragment: 'ignored',
+  };
 
   /** Curation links by role: proposing for curators and up, the review queue for editors. */
   protected readonly curationItems = computed(() => {
