@@ -7,6 +7,7 @@ import {
   signInTo,
   type BrowserSession,
 } from '../support/browser';
+import { startReplacingValue } from '../support/proposal-form';
 
 describe('four eyes: an editor cannot decide their own proposal', () => {
   let s: BrowserSession;
@@ -23,17 +24,11 @@ describe('four eyes: an editor cannot decide their own proposal', () => {
 
     // --- a second editor proposes, on a phone ---
     await signInTo(s, 'demo-editor-2', '/curation/propose');
-    await page.getByRole('heading', { name: 'Propose' }).waitFor();
-    await page.getByLabel('Rationale').fill('Propane re-evaluated by the demo team (demo data).');
-    await page.getByRole('combobox', { name: 'Item 1 kind' }).click();
-    await page.getByRole('option', { name: 'Replace a value' }).click();
-    await page.getByLabel('Item 1 species').fill('propane');
-    await page
-      .getByRole('option', { name: /Propane/ })
-      .first()
-      .click();
-    await page.getByRole('combobox', { name: 'Item 1 phase' }).click();
-    await page.getByRole('option', { name: 'gas', exact: true }).click();
+    await startReplacingValue(page, 'Propane re-evaluated by the demo team (demo data).', {
+      species: 'propane',
+      option: /Propane/,
+      phase: 'gas',
+    });
     await page.getByRole('combobox', { name: 'Unit' }).click();
     await page.getByRole('option', { name: 'kcal/mol' }).click();
     await page.getByLabel('Item 1 value').fill('-25.02');

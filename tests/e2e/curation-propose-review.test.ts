@@ -7,6 +7,7 @@ import {
   signInTo,
   type BrowserSession,
 } from '../support/browser';
+import { startReplacingValue } from '../support/proposal-form';
 
 // An invented source of the demo team, labelled as demo data (never a real measurement).
 const DEMO_BIBTEX = `@techreport{kpw2026methane,
@@ -35,18 +36,11 @@ describe('a curator proposes a value and an editor approves it', () => {
 
     // --- the curator builds the proposal ---
     await signInTo(s, 'demo-curator', '/curation/propose');
-    await page.getByRole('heading', { name: 'Propose' }).waitFor();
-    await page.getByLabel('Rationale').fill('Newer combustion run of the demo team (demo data).');
-
-    await page.getByRole('combobox', { name: 'Item 1 kind' }).click();
-    await page.getByRole('option', { name: 'Replace a value' }).click();
-    await page.getByLabel('Item 1 species').fill('methane');
-    await page
-      .getByRole('option', { name: /Methane/ })
-      .first()
-      .click();
-    await page.getByRole('combobox', { name: 'Item 1 phase' }).click();
-    await page.getByRole('option', { name: 'gas', exact: true }).click();
+    await startReplacingValue(page, 'Newer combustion run of the demo team (demo data).', {
+      species: 'methane',
+      option: /Methane/,
+      phase: 'gas',
+    });
 
     // A typographic minus and a decimal comma, read as the shared number input reads them.
     await page.getByLabel('Item 1 value').fill('\u221275,9');
