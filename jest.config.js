@@ -26,6 +26,7 @@ module.exports = {
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
       moduleNameMapper: serverModules,
+      setupFilesAfterEnv: ['<rootDir>/tests/support/api-timeout.ts'],
     },
     {
       displayName: 'api',
@@ -34,6 +35,7 @@ module.exports = {
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
       moduleNameMapper: serverModules,
+      setupFilesAfterEnv: ['<rootDir>/tests/support/api-timeout.ts'],
     },
     {
       displayName: 'e2e',
