@@ -7,9 +7,6 @@ import { ReleaseDiff, ReleaseDiffRow } from '../../server/src/modules/releases/r
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import { createTestApp, type TestApp } from '../support/test-app';
 
-// Cloning a database and reading whole releases takes a while on a busy machine: wait, never fail for it.
-jest.setTimeout(60_000);
-
 /**
  * A new release made through the releases service from the newest seeded one (`base`): one ΔfH° changed
  * (to a demo source whose citation needs escaping), one retired, one species-phase added and

@@ -5,9 +5,6 @@ import { createApp } from '../../server/src/app';
 import { createLogger } from '../../server/src/lib/logger';
 import { createTestApp, type TestApp } from '../support/test-app';
 
-// Cloning a database and reading whole releases takes a while on a busy machine: wait, never fail for it.
-jest.setTimeout(60_000);
-
 const FORMATS = ['csv', 'json', 'xml'] as const;
 
 const bytes = (req: request.Test) =>

@@ -14,9 +14,6 @@ import {
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import { createTestApp, type TestApp } from '../support/test-app';
 
-// Cloning a database and reading whole releases takes a while on a busy machine: wait, never fail for it.
-jest.setTimeout(60_000);
-
 /** The body of a download as bytes, whatever its content type. */
 const bytes = (req: request.Test) =>
   req.buffer(true).parse((res, done) => {

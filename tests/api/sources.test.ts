@@ -9,8 +9,6 @@ import {
 import { createTestApp, signIn, type Agent, type TestApp } from '../support/test-app';
 
 const DEMO_DOI = '10.5555/kestrel.demo.2025.002';
-// Sign-ins and parsing take a while on a busy machine; nothing here is about speed.
-jest.setTimeout(60_000);
 
 describe('sources', () => {
   let t: TestApp;
