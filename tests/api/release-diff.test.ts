@@ -4,7 +4,7 @@ import request from 'supertest';
 import { unguardCsvText } from '../../server/src/lib/csv-text';
 import { IMMUTABLE_CACHE } from '../../server/src/modules/releases/release-http-cache';
 import { ReleaseDiff, ReleaseDiffRow } from '../../server/src/modules/releases/releases-schemas';
-import { createReleasesService } from '../../server/src/modules/releases/releases-service';
+import { insertAcceptedSpecies, insertSource, publishAccepted } from '../support/releases';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /**
@@ -50,7 +50,6 @@ describe('release diffs', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    const editor = (await one(`select id from users where login = 'demo-editor'`)).id as number;
     base = (
       await one(`select version from releases where status = 'published'
                  order by published_at desc, id desc limit 1`)
@@ -66,11 +65,7 @@ describe('release diffs', () => {
     picked.changed = await pick('formation_enthalpy', 0);
     picked.retired = await pick('formation_enthalpy', 1);
     picked.heat = await pick('heat_capacity', 0);
-    const source = (
-      await one(`insert into sources (csl, citation) values ('{}', $1) returning id`, [
-        DEMO_CITATION,
-      ])
-    ).id;
+    const source = await insertSource(t, DEMO_CITATION);
 
     // Changed: new value = old + 3.125 u, new u = 0.75 u, so the combined uncertainty is
     // 1.25 u (3-4-5) and the change is exactly 2.5 combined uncertainties.
@@ -108,33 +103,14 @@ describe('release diffs', () => {
        select $2, seq, t_min, t_max, coefficients from heat_capacity_ranges where revision_id = $1`,
       [picked.heat.id, created.heat],
     );
-    const species = (
-      await one(
-        `insert into species (key, name, formula) values ('kestrel-demo-oxide', $1, 'KeO')
-         returning id`,
-        [ADDED_NAME],
-      )
-    ).id;
-    const phase = (
-      await one(`insert into species_phases (species_id, phase) values ($1, 'cr') returning id`, [
-        species,
-      ])
-    ).id;
-    created.added = (
-      await one(
-        `insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
-           uncertainty_basis, method, source_id, status)
-         values ($1, 'formation_enthalpy', 'formation_enthalpy', -123456.7, 800, 'expanded_k2',
-                 'demo_estimate', $2, 'accepted') returning id`,
-        [phase, source],
-      )
-    ).id;
-
-    const releases = createReleasesService(t.db.db);
-    await t.db.db.transaction(async (tx) => {
-      await releases.createDraftIn(tx, { id: editor }, NEW, 'Demo second release');
-      await releases.publishIn(tx, { id: editor }, NEW);
+    created.added = await insertAcceptedSpecies(t, {
+      key: 'kestrel-demo-oxide',
+      name: ADDED_NAME,
+      formula: 'KeO',
+      method: 'demo_estimate',
+      sourceId: source,
     });
+    await publishAccepted(t, NEW, 'Demo second release');
   });
   afterAll(() => t.close());
 

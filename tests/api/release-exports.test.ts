@@ -11,7 +11,7 @@ import {
   ReleaseExport,
   ReleaseManifestWithExports,
 } from '../../server/src/modules/releases/releases-schemas';
-import { createReleasesService } from '../../server/src/modules/releases/releases-service';
+import { insertAcceptedSpecies, insertSource, publishAccepted } from '../support/releases';
 import { createTestApp, type TestApp } from '../support/test-app';
 
 /** The body of a download as bytes, whatever its content type. */
@@ -299,36 +299,14 @@ describe('release exports', () => {
     // Demo data: a species, method and citation that a spreadsheet would take for formulas.
     const name = '=HYPERLINK("https://example.invalid","Kestrel demo oxide")';
     const citation = '@Kestrel Process Works demo note';
-    const one = async (text: string, params: unknown[] = []) =>
-      (await t.db.pool.query(text, params)).rows[0];
-    const editor = (await one(`select id from users where login = 'demo-editor'`)).id as number;
-    const source = (
-      await one(`insert into sources (csl, citation) values ('{}', $1) returning id`, [citation])
-    ).id;
-    const species = (
-      await one(
-        `insert into species (key, name, formula) values ('kestrel-formula-oxide', $1, 'KeO2')
-         returning id`,
-        [name],
-      )
-    ).id;
-    const phase = (
-      await one(`insert into species_phases (species_id, phase) values ($1, 'cr') returning id`, [
-        species,
-      ])
-    ).id;
-    await t.db.pool.query(
-      `insert into revisions (species_phase_id, kind, quantity, value, uncertainty,
-         uncertainty_basis, method, source_id, status)
-       values ($1, 'formation_enthalpy', 'formation_enthalpy', -123456.7, 800, 'expanded_k2',
-               '-demo_estimate', $2, 'accepted')`,
-      [phase, source],
-    );
-    const releases = createReleasesService(t.db.db);
-    await t.db.db.transaction(async (tx) => {
-      await releases.createDraftIn(tx, { id: editor }, '2026.7', 'Demo formula-guard release');
-      await releases.publishIn(tx, { id: editor }, '2026.7');
+    await insertAcceptedSpecies(t, {
+      key: 'kestrel-formula-oxide',
+      name,
+      formula: 'KeO2',
+      method: '-demo_estimate',
+      sourceId: await insertSource(t, citation),
     });
+    await publishAccepted(t, '2026.7', 'Demo formula-guard release');
     const got: Record<string, Buffer> = {};
     for (const f of ['csv', 'json', 'xml']) {
       got[f] = (await bytes(request(t.app).get(`/api/v1/releases/2026.7/export.${f}`))).body;
