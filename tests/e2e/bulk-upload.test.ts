@@ -27,7 +27,7 @@ describe('a curator bulk-uploads a CSV', () => {
   it('sees a row error in the dry run, uploads the fixed file, submits and lands on the proposal', async () => {
     const { page, baseUrl } = s;
     await signInTo(s, 'demo-curator', '/curation/proposals');
-    await page.getByRole('link', { name: 'Bulk upload' }).click();
+    await page.getByRole('tab', { name: 'Bulk upload' }).click();
     await page.waitForURL(`${baseUrl}/proposals/upload`);
     await page.getByRole('heading', { name: 'Bulk upload' }).waitFor();
 

@@ -81,8 +81,8 @@ describe('a curator proposes a value and an editor approves it', () => {
     await page.waitForURL(`${baseUrl}/curation/proposals/${id}`);
     // Someone else's proposal is not among "My proposals": no curation tab claims this page.
     const curationTabs = page.getByRole('navigation', { name: 'Curation' });
-    await curationTabs.getByRole('link', { name: 'Review' }).waitFor();
-    expect(await curationTabs.locator('a[aria-current="page"]').count()).toBe(0);
+    await curationTabs.getByRole('tab', { name: 'Review' }).waitFor();
+    expect(await curationTabs.getByRole('tab', { selected: true }).count()).toBe(0);
     const comparison = page.getByRole('group', { name: 'Recorded and proposed value' });
     await comparison.getByRole('region', { name: 'Recorded now' }).waitFor();
     await comparison

@@ -33,7 +33,7 @@ describe('Calculate → Hess combination in the browser', () => {
     await page.waitForURL(/\/calculate\//);
     await page
       .getByRole('navigation', { name: 'Calculate' })
-      .getByRole('link', { name: 'Hess combination' })
+      .getByRole('tab', { name: 'Hess combination' })
       .click();
     await page.getByRole('heading', { name: 'Hess combination' }).waitFor();
     await expect(

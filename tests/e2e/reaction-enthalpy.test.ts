@@ -44,7 +44,7 @@ describe('Calculate → Reaction enthalpy in the browser', () => {
       .click();
     await page
       .getByRole('navigation', { name: 'Calculate' })
-      .getByRole('link', { name: 'Reaction enthalpy' })
+      .getByRole('tab', { name: 'Reaction enthalpy' })
       .click();
     await page.waitForURL(/\/calculate\/reaction/);
     await page.getByRole('heading', { name: 'Reaction enthalpy', level: 1 }).waitFor();

@@ -5,7 +5,7 @@ import { MatChip, MatChipSet } from '@angular/material/chips';
 import { MatIcon } from '@angular/material/icon';
 import { MatMenu, MatMenuItem, MatMenuTrigger } from '@angular/material/menu';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { MatTabLink, MatTabNav } from '@angular/material/tabs';
+import { MatTabLink, MatTabNav, MatTabNavPanel } from '@angular/material/tabs';
 import { MatToolbar } from '@angular/material/toolbar';
 import {
   NavigationEnd,
@@ -14,10 +14,38 @@ import {
   RouterLinkActive,
   type IsActiveMatchOptions,
 } from '@angular/router';
+import { NgTemplateOutlet } from '@angular/common';
 import { filter, map, startWith } from 'rxjs';
 
 import { readableMessage } from '../api-error';
 import { Session, signInHref } from '../session';
+
+interface SubNav {
+  label: string;
+  items: readonly { path: string; label: string }[];
+  match: IsActiveMatchOptions;
+}
+
+const CALCULATE: SubNav = {
+  label: 'Calculate',
+  items: [
+    { path: '/calculate/reaction', label: 'Reaction enthalpy' },
+    { path: '/calculate/hess', label: 'Hess combination' },
+  ],
+  match: { paths: 'subset', queryParams: 'ignored', matrixParams: 'ignored', fragment: 'ignored' },
+};
+
+/** Exact paths: a proposal's own page (under /curation/proposals) is not "My proposals". */
+const CURATION: SubNav = {
+  label: 'Curation',
+  items: [
+    { path: '/curation/propose', label: 'Propose' },
+    { path: '/proposals/upload', label: 'Bulk upload' },
+    { path: '/curation/proposals', label: 'My proposals' },
+    { path: '/curation/review', label: 'Review' },
+  ],
+  match: { paths: 'exact', queryParams: 'ignored', matrixParams: 'ignored', fragment: 'ignored' },
+};
 
 /** Top bar (product name, navigation, who is signed in) around the routed screen. */
 @Component({
@@ -34,6 +62,8 @@ import { Session, signInHref } from '../session';
     MatChip,
     MatTabNav,
     MatTabLink,
+    MatTabNavPanel,
+    NgTemplateOutlet,
     RouterLink,
     RouterLinkActive,
   ],
@@ -48,33 +78,6 @@ export class Shell {
 
   protected readonly signingOut = signal(false);
 
-  protected readonly calculateItems = [
-    { path: '/calculate/reaction', label: 'Reaction enthalpy' },
-    { path: '/calculate/hess', label: 'Hess combination' },
-  ] as const;
-
-  protected readonly exactPath: IsActiveMatchOptions = {
-    paths: 'exact',
-    queryParams: 'ignored',
-    matrixParams: 'ignored',
-    fragment: 'ignored',
-  };
-
-  /** Curation links by role: proposing for curators and up, the review queue for editors. */
-  protected readonly curationItems = computed(() => {
-    const items: { path: string; label: string }[] = [];
-    if (!this.session.hasRole('curator', 'editor', 'admin')) return items;
-    items.push(
-      { path: '/curation/propose', label: 'Propose' },
-      { path: '/proposals/upload', label: 'Bulk upload' },
-      { path: '/curation/proposals', label: 'My proposals' },
-    );
-    if (this.session.hasRole('editor', 'admin')) {
-      items.push({ path: '/curation/review', label: 'Review' });
-    }
-    return items;
-  });
-
   private readonly url = toSignal(
     this.router.events.pipe(
       filter((event) => event instanceof NavigationEnd),
@@ -85,11 +88,19 @@ export class Shell {
   );
   /** Sign-in comes back to this page with its query (a calculation kept in the URL survives). */
   protected readonly signInUrl = computed(() => signInHref(this.url()));
-  /** The calculation screens get a second row of links, one per screen. */
-  protected readonly inCalculate = computed(() => this.url().startsWith('/calculate'));
-  protected readonly inCuration = computed(
-    () => this.url().startsWith('/curation') || this.url().startsWith('/proposals/upload'),
-  );
+  /**
+   * The second row of tabs, one per screen of a section: the calculation screens for everyone,
+   * curation by role (proposing for curators and up, the review queue for editors).
+   */
+  protected readonly canCurate = computed(() => this.session.hasRole('curator', 'editor', 'admin'));
+  protected readonly subNav = computed((): SubNav | null => {
+    const url = this.url();
+    if (url.startsWith('/calculate')) return CALCULATE;
+    if (!url.startsWith('/curation') && !url.startsWith('/proposals/upload')) return null;
+    if (!this.canCurate()) return null;
+    const review = this.session.hasRole('editor', 'admin');
+    return { ...CURATION, items: review ? CURATION.items : CURATION.items.slice(0, -1) };
+  });
 
   protected async signOut(): Promise<void> {
     this.signingOut.set(true);
