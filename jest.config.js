@@ -18,6 +18,7 @@ module.exports = {
       testMatch: ['**/*.spec.ts'],
       transform: serverTransform,
       moduleNameMapper: serverModules,
+      setupFilesAfterEnv: ['<rootDir>/tests/support/test-timeout.ts'],
     },
     {
       displayName: 'reference',
@@ -26,7 +27,7 @@ module.exports = {
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
       moduleNameMapper: serverModules,
-      setupFilesAfterEnv: ['<rootDir>/tests/support/api-timeout.ts'],
+      setupFilesAfterEnv: ['<rootDir>/tests/support/test-timeout.ts'],
     },
     {
       displayName: 'api',
@@ -35,7 +36,7 @@ module.exports = {
       testMatch: ['**/*.test.ts'],
       transform: serverTransform,
       moduleNameMapper: serverModules,
-      setupFilesAfterEnv: ['<rootDir>/tests/support/api-timeout.ts'],
+      setupFilesAfterEnv: ['<rootDir>/tests/support/test-timeout.ts'],
     },
     {
       displayName: 'e2e',

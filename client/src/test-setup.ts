@@ -4,3 +4,7 @@ setupZonelessTestEnv({
   errorOnUnknownElements: true,
   errorOnUnknownProperties: true,
 });
+
+// Rendering specs share the machine with the rest of the run; on a busy moment one may take
+// several times its usual second. Their waits are for conditions, so this is only an upper bound.
+jest.setTimeout(30_000);
