@@ -1,3 +1,4 @@
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButton, MatIconButton } from '@angular/material/button';
@@ -14,7 +15,6 @@ import {
   RouterLinkActive,
   type IsActiveMatchOptions,
 } from '@angular/router';
-import { NgTemplateOutlet } from '@angular/common';
 import { filter, map, startWith } from 'rxjs';
 
 import { readableMessage } from '../api-error';
@@ -88,18 +88,18 @@ export class Shell {
   );
   /** Sign-in comes back to this page with its query (a calculation kept in the URL survives). */
   protected readonly signInUrl = computed(() => signInHref(this.url()));
+  protected readonly canCurate = computed(() => this.session.hasRole('curator', 'editor', 'admin'));
   /**
    * The second row of tabs, one per screen of a section: the calculation screens for everyone,
    * curation by role (proposing for curators and up, the review queue for editors).
    */
-  protected readonly canCurate = computed(() => this.session.hasRole('curator', 'editor', 'admin'));
   protected readonly subNav = computed((): SubNav | null => {
     const url = this.url();
     if (url.startsWith('/calculate')) return CALCULATE;
     if (!url.startsWith('/curation') && !url.startsWith('/proposals/upload')) return null;
     if (!this.canCurate()) return null;
-    const review = this.session.hasRole('editor', 'admin');
-    return { ...CURATION, items: review ? CURATION.items : CURATION.items.slice(0, -1) };
+    if (this.session.hasRole('editor', 'admin')) return CURATION;
+    return { ...CURATION, items: CURATION.items.filter((i) => i.path !== '/curation/review') };
   });
 
   protected async signOut(): Promise<void> {
