@@ -1,4 +1,5 @@
 import { sql } from 'drizzle-orm';
+import type { Tx } from '../../server/src/db/client';
 import { createReleasesService } from '../../server/src/modules/releases/releases-service';
 import type { TestApp } from './test-app';
 
@@ -13,10 +14,7 @@ export async function publishRevisedWater(
   changeJPerMol = 500,
   notes = 'Water revised (test data)',
 ): Promise<void> {
-  const editor = (await t.db.pool.query(`select id from users where login = 'demo-editor'`))
-    .rows[0] as { id: number };
-  const releases = createReleasesService(t.db.db);
-  await t.db.db.transaction(async (tx) => {
+  await publishAccepted(t, '2026.2', notes, async (tx) => {
     await tx.execute(sql`
       with old as (
         update revisions r set status = 'superseded', status_changed_at = now()
@@ -28,17 +26,24 @@ export async function publishRevisedWater(
         uncertainty_basis, method, standard_pressure, source_id, status, supersedes_id)
       select species_phase_id, kind, quantity, value + ${changeJPerMol}, uncertainty,
         uncertainty_basis, method, standard_pressure, source_id, 'accepted', id from old`);
-    await releases.createDraftIn(tx, editor, '2026.2', notes);
-    await releases.publishIn(tx, editor, '2026.2');
   });
 }
 
-/** Publishes the accepted revisions as release `version` through the release service, as demo-editor. */
-export async function publishAccepted(t: TestApp, version: string, notes: string): Promise<void> {
+/**
+ * Publishes the accepted revisions as release `version` through the release service, as
+ * demo-editor, after `prepare` (if given) has changed them in the same transaction.
+ */
+export async function publishAccepted(
+  t: TestApp,
+  version: string,
+  notes: string,
+  prepare?: (tx: Tx) => Promise<void>,
+): Promise<void> {
   const editor = (await t.db.pool.query(`select id from users where login = 'demo-editor'`))
     .rows[0] as { id: number };
   const releases = createReleasesService(t.db.db);
   await t.db.db.transaction(async (tx) => {
+    await prepare?.(tx);
     await releases.createDraftIn(tx, editor, version, notes);
     await releases.publishIn(tx, editor, version);
   });
